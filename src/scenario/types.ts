@@ -1,0 +1,197 @@
+/**
+ * The validated scenario: what flies, where it lands, and the span to walk.
+ * Everything here is plain data in the units its names carry. Nothing after
+ * scenario/ reads a file; every later stage takes these types.
+ */
+
+/** One mean element set, parsed and checked, ready for SGP4. */
+export interface ElementSet {
+  /** Where it came from, for messages: "ephemerides/demo.json: spacecraft[0].orbit.tle". */
+  origin: string;
+  /** Catalogue number as written (string: alpha-5 allowed). */
+  catalogNumber: string;
+  /** Epoch, UTC epoch milliseconds (fractional ms kept). */
+  epochMs: number;
+  /** Two TLE lines (columns 1..69) when the source was a TLE. */
+  tle?: { line1: string; line2: string };
+  /** OMM mean elements (SGP4 theory) when the source was an OMM. */
+  omm?: OmmElements;
+}
+
+/** CCSDS 502.0-B OMM mean elements for SGP4/SDP4, in the units the standard uses. */
+export interface OmmElements {
+  objectName: string;
+  objectId: string;
+  /** Epoch as an ISO 8601 UTC calendar string with no zone suffix, microseconds kept. */
+  epochIso: string;
+  meanMotionRevPerDay: number;
+  eccentricity: number;
+  inclinationDeg: number;
+  raanDeg: number;
+  argPericenterDeg: number;
+  meanAnomalyDeg: number;
+  bstarPerEarthRadii: number;
+  meanMotionDotRevPerDay2: number;
+  meanMotionDdotRevPerDay3: number;
+  noradCatId: number;
+  elementSetNo: number;
+  revAtEpoch: number;
+  classification: string;
+  ephemerisType: number;
+}
+
+export type OrbitSource =
+  | { kind: 'elements'; sets: ElementSet[] }
+  | { kind: 'moon' }
+  | { kind: 'fixedSky'; rightAscensionDeg: number; declinationDeg: number; rangeKm: number };
+
+/** Transmit antenna: a constant gain, or a pattern versus off-boresight angle. */
+export type TxAntenna =
+  | { kind: 'constant'; gainDbi: number }
+  | {
+      kind: 'pattern';
+      /** Off-boresight angles (deg, ascending from 0) and gains (dBi), linearly interpolated. */
+      offBoresightDeg: number[];
+      gainDbi: number[];
+      /** Boresight nadir-pointing, or tracking the station (off-boresight 0). */
+      pointing: 'nadir' | 'tracking';
+    };
+
+/** One row of a modulation-and-coding table. */
+export interface ModcodEntry {
+  name: string;
+  /** Information bits per transmitted symbol. */
+  spectralEfficiencyBitsPerSymbol: number;
+  /** Threshold Es/N0 for the table's error criterion, dB. */
+  esN0ThresholdDb: number;
+  source: string;
+}
+
+export type Coding =
+  | {
+      kind: 'fixed';
+      /** Name of the table entry or code, for reports. */
+      name: string;
+      /** Required Eb/N0 per information bit, dB. */
+      ebN0ThresholdDb: number;
+      informationRateBps: number;
+      /** Information bits per symbol (sets the symbol rate, for Es/N0 and Shannon). */
+      spectralEfficiencyBitsPerSymbol: number;
+      rollOff: number;
+    }
+  | {
+      kind: 'adaptive';
+      tableName: string;
+      table: ModcodEntry[];
+      symbolRateBaud: number;
+      rollOff: number;
+    };
+
+export interface Radio {
+  id: string;
+  frequencyHz: number;
+  txPowerDbw: number;
+  /** Losses between amplifier and antenna (circuit, cable, diplexer), dB >= 0. */
+  txLossDb: number;
+  antenna: TxAntenna;
+  polarization: Polarization;
+  coding: Coding;
+  implementationLossDb: number;
+  requiredMarginDb: number;
+}
+
+export type Polarization = 'RHCP' | 'LHCP' | 'linear-h' | 'linear-v';
+
+export interface Spacecraft {
+  id: string;
+  name: string;
+  priority: number;
+  orbit: OrbitSource;
+  radios: Radio[];
+  /** Onboard recorder (network planning). */
+  recorder?: { capacityBits: number; generationBps: number };
+}
+
+/** Horizon mask: a constant elevation, or a profile of (azimuth, elevation) points. */
+export type Mask =
+  | { kind: 'constant'; elevationDeg: number }
+  | { kind: 'profile'; azimuthDeg: number[]; elevationDeg: number[] };
+
+/** Receive side: either a dish and a noise chain, or a stated G/T. */
+export type Receiver =
+  | {
+      kind: 'chain';
+      /** Dish diameter and aperture efficiency, or a stated gain. */
+      gainDbi?: number;
+      dishDiameterM?: number;
+      apertureEfficiency?: number;
+      /** Receiver (LNA onwards) noise temperature, K. */
+      receiverNoiseTempK: number;
+      /** Loss between feed and LNA, dB, at a physical temperature. */
+      feedLossDb: number;
+      feedPhysicalTempK: number;
+      /** Antenna noise excluding the sky (spillover, ground), K. */
+      antennaNoiseTempK: number;
+    }
+  | {
+      kind: 'gt';
+      gOverTDbK: number;
+      /** Elevation at which the G/T was stated (clear sky). */
+      atElevationDeg: number;
+      /** Gain needed for pointing loss and beamwidth, optional. */
+      gainDbi?: number;
+    };
+
+export interface Climate {
+  /** Rain rate exceeded 0.01 % of an average year, mm/h (ITU-R P.837). */
+  rainRate001MmH?: number;
+  /** Rain height, km (ITU-R P.839: 0 °C isotherm + 0.36 km). */
+  rainHeightKm?: number;
+  surfaceWaterVapourDensityGM3: number;
+  surfaceTemperatureK: number;
+  surfacePressureHpa: number;
+  /** Wet term of surface refractivity, median, N-units (ITU-R P.453). */
+  nWetMedian: number;
+  /** Integrated cloud liquid water exceeded at the availability, kg/m² (ITU-R P.840), optional. */
+  cloudLiquidWaterKgM2?: number;
+}
+
+export interface Station {
+  id: string;
+  name: string;
+  latitudeDeg: number;
+  longitudeDeg: number;
+  heightKm: number;
+  mask: Mask;
+  timeZone: string;
+  receiver: Receiver;
+  pointingErrorDeg: number;
+  polarization: Polarization;
+  climate: Climate;
+  antennaCount: number;
+  setupTimeS: number;
+}
+
+/** A span to walk: [startMs, endMs). */
+export interface Span {
+  startMs: number;
+  endMs: number;
+}
+
+export interface LinkSettings {
+  /** Availability the budget is computed for, percent of time (90..99.999). */
+  availabilityPercent: number;
+  /** Time at AOS before data flows, s. */
+  acquisitionTimeS: number;
+  /** Minimum elevation for data, deg (in addition to the mask). */
+  minDataElevationDeg: number;
+}
+
+export interface Scenario {
+  spacecraft: Spacecraft[];
+  stations: Station[];
+  /** The span the files propose (demo week); the CLI may override. */
+  span?: Span;
+  link: LinkSettings;
+  sources: { spacecraftFile: string; networkFile: string };
+}
