@@ -109,7 +109,7 @@ export interface Spacecraft {
   orbit: OrbitSource;
   radios: Radio[];
   /** Onboard recorder (network planning). */
-  recorder?: { capacityBits: number; generationBps: number };
+  recorder?: { capacityBits: number; generationBps: number; initialFillBits: number };
 }
 
 /** Horizon mask: a constant elevation, or a profile of (azimuth, elevation) points. */
@@ -138,8 +138,10 @@ export type Receiver =
       gOverTDbK: number;
       /** Elevation at which the G/T was stated (clear sky). */
       atElevationDeg: number;
-      /** Gain needed for pointing loss and beamwidth, optional. */
+      /** Gain or dish, needed for pointing loss and beamwidth, optional. */
       gainDbi?: number;
+      dishDiameterM?: number;
+      apertureEfficiency?: number;
     };
 
 export interface Climate {

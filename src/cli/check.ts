@@ -1,0 +1,26 @@
+/** `passbudget check`: validate scenario files and report every problem at once. */
+import type { Command } from 'commander';
+import { loadScenario } from '../scenario/load.js';
+import { demoFiles } from '../scenario/paths.js';
+import type { CliIo } from './io.js';
+import type { SetExit } from './commands.js';
+
+export function registerCheck(program: Command, io: CliIo, setExit: SetExit): void {
+  program
+    .command('check')
+    .description('validate spacecraft and network files; print every problem, one per line (exit 2 if any)')
+    .option('--spacecraft <file>', 'spacecraft file (JSON or YAML); default: the bundled demo fleet')
+    .option('--network <file>', 'ground network file (JSON or YAML); default: the bundled demo network')
+    .action((raw: { spacecraft?: string; network?: string }) => {
+      const demo = demoFiles();
+      const files = { spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile };
+      const scenario = loadScenario(files); // throws ScenarioError with every problem
+      const sets = scenario.spacecraft.reduce((n, s) => n + (s.orbit.kind === 'elements' ? s.orbit.sets.length : 0), 0);
+      const radios = scenario.spacecraft.reduce((n, s) => n + s.radios.length, 0);
+      io.out(
+        `ok: ${files.spacecraftFile}: ${scenario.spacecraft.length} spacecraft, ${sets} element sets, ${radios} radios\n` +
+          `ok: ${files.networkFile}: ${scenario.stations.length} stations\n`,
+      );
+      setExit(0);
+    });
+}

@@ -1,0 +1,12 @@
+/** Registers every passbudget command on the program. */
+import type { Command } from 'commander';
+import type { CliIo } from './io.js';
+import { registerCheck } from './check.js';
+import { registerPlan } from './plan.js';
+
+export type SetExit = (code: number) => void;
+
+export function registerCommands(program: Command, io: CliIo, setExit: SetExit): void {
+  registerPlan(program, io, setExit);
+  registerCheck(program, io, setExit);
+}

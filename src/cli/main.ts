@@ -1,0 +1,76 @@
+#!/usr/bin/env node
+/**
+ * passbudget command line. Parses flags, calls the stages, hands results to a
+ * renderer. Holds no physics. Exit codes: 0 ok, 1 a requirement failed,
+ * 2 bad input (one line per problem, never a stack trace).
+ */
+import { Command, CommanderError } from 'commander';
+import { realpathSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { ScenarioError, ModelRangeError, UsageError } from '../errors.js';
+import { processIo, type CliIo } from './io.js';
+import { registerCommands } from './commands.js';
+
+export const EXIT_OK = 0;
+export const EXIT_REQUIREMENT_FAILED = 1;
+export const EXIT_BAD_INPUT = 2;
+
+export async function run(argv: string[], io: CliIo = processIo): Promise<number> {
+  const program = new Command();
+  let exitCode = EXIT_OK;
+  program
+    .name('passbudget')
+    .description('Contact windows and a downlink budget at every second of every pass, for a week of spacecraft contacts.')
+    .exitOverride()
+    .configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) })
+    .showHelpAfterError(false);
+  registerCommands(program, io, (code) => {
+    exitCode = code;
+  });
+  try {
+    await program.parseAsync(argv, { from: 'user' });
+    return exitCode;
+  } catch (err) {
+    return handleError(err, io);
+  }
+}
+
+function handleError(err: unknown, io: CliIo): number {
+  if (err instanceof CommanderError) {
+    // commander has already printed its one-line message (or help / version).
+    if (err.code === 'commander.helpDisplayed' || err.code === 'commander.version' || err.code === 'commander.help') return EXIT_OK;
+    return EXIT_BAD_INPUT;
+  }
+  if (err instanceof ScenarioError) {
+    for (const line of err.message.split('\n')) io.err(`error: ${line}\n`);
+    return EXIT_BAD_INPUT;
+  }
+  if (err instanceof ModelRangeError || err instanceof UsageError) {
+    io.err(`error: ${err.message}\n`);
+    return EXIT_BAD_INPUT;
+  }
+  throw err;
+}
+
+function isMain(): boolean {
+  const entry = process.argv[1];
+  if (entry === undefined) return false;
+  try {
+    return realpathSync(entry) === realpathSync(fileURLToPath(import.meta.url));
+  } catch {
+    return false;
+  }
+}
+
+if (isMain()) {
+  run(process.argv.slice(2)).then(
+    (code) => {
+      process.exitCode = code;
+    },
+    (err: unknown) => {
+      // A bug, not a user's mistake: show it in full.
+      console.error(err);
+      process.exitCode = 70;
+    },
+  );
+}

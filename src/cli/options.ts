@@ -1,0 +1,89 @@
+/**
+ * Flags every command shares, turned into checked values. A bad flag value is
+ * a UsageError naming the flag, the value and what is valid (exit 2).
+ */
+import { Command, Option } from 'commander';
+import { IANAZone } from 'luxon';
+import { UsageError } from '../errors.js';
+import { demoFiles } from '../scenario/paths.js';
+import { parseInstant, type ScenarioFiles } from '../scenario/load.js';
+import { parseDurationS } from '../time/duration.js';
+import type { Scenario, Span } from '../scenario/types.js';
+
+export type Format = 'table' | 'json' | 'csv';
+
+export interface CommonOptions {
+  files: ScenarioFiles;
+  fromMs?: number;
+  days?: number;
+  stepS?: number;
+  outDir: string;
+  format: Format;
+  zone?: string;
+  write: boolean;
+}
+
+export function addCommonOptions(cmd: Command): Command {
+  return cmd
+    .option('--spacecraft <file>', 'spacecraft file (JSON or YAML); default: the bundled demo fleet')
+    .option('--network <file>', 'ground network file (JSON or YAML); default: the bundled demo network')
+    .option('--from <iso>', 'start of the window, ISO 8601 (UTC unless a zone is given)')
+    .option('--days <n>', 'length of the window in days')
+    .option('--step <duration>', 'time step, e.g. 10s, 1m')
+    .option('--out <dir>', 'output folder', 'out')
+    .addOption(new Option('--format <format>', 'terminal output format').choices(['table', 'json', 'csv']).default('table'))
+    .option('--zone <iana>', 'show times and days in this IANA time zone')
+    .option('--no-write', 'print only; write no files under --out');
+}
+
+interface RawOptions {
+  spacecraft?: string;
+  network?: string;
+  from?: string;
+  days?: string;
+  step?: string;
+  out: string;
+  format: Format;
+  zone?: string;
+  write: boolean;
+}
+
+export function readCommonOptions(raw: RawOptions): CommonOptions {
+  const demo = demoFiles();
+  const opts: CommonOptions = {
+    files: { spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile },
+    outDir: raw.out,
+    format: raw.format,
+    write: raw.write,
+  };
+  if (raw.from !== undefined) {
+    const t = parseInstant(raw.from);
+    if (t === undefined) throw new UsageError(`--from: "${raw.from}" is not an ISO 8601 time (e.g. 2026-03-05T00:00:00Z)`);
+    opts.fromMs = t;
+  }
+  if (raw.days !== undefined) {
+    const d = Number(raw.days);
+    if (!Number.isFinite(d) || d <= 0 || d > 366) throw new UsageError(`--days: "${raw.days}" must be a number of days in (0, 366]`);
+    opts.days = d;
+  }
+  if (raw.step !== undefined) {
+    const s = parseDurationS(raw.step);
+    if (s === undefined || s < 0.1 || s > 3600) throw new UsageError(`--step: "${raw.step}" must be a duration from 0.1s to 1h (e.g. 1s, 10s, 1m)`);
+    opts.stepS = s;
+  }
+  if (raw.zone !== undefined) {
+    if (!IANAZone.isValidZone(raw.zone)) throw new UsageError(`--zone: "${raw.zone}" is not an IANA time zone (e.g. Europe/Oslo, UTC)`);
+    opts.zone = raw.zone;
+  }
+  return opts;
+}
+
+/**
+ * The span to walk: --from/--days, else the scenario's own window, else
+ * today 00:00 UTC for 7 days (the clock is read only here, by the CLI).
+ */
+export function spanFor(opts: CommonOptions, scenario: Scenario, nowMs: number): Span {
+  const days = opts.days ?? (scenario.span ? (scenario.span.endMs - scenario.span.startMs) / 86_400_000 : 7);
+  const startMs = opts.fromMs ?? scenario.span?.startMs ?? Math.floor(nowMs / 86_400_000) * 86_400_000;
+  return { startMs, endMs: startMs + days * 86_400_000 };
+}

@@ -1,0 +1,304 @@
+/**
+ * The link engine over the contacts: a budget at every time step inside every
+ * contact, and the data volume each contact carries.
+ *
+ * Which radio: a spacecraft's first radio (radios[0]) is its data downlink.
+ * Sampling: per spacecraft, one common grid span.start + k * stepS; the target
+ * is propagated once per grid time and that state serves every station in
+ * contact then. Each contact is also evaluated at its own data start and end.
+ * Volume rule (trapezoid): data flows from AOS + acquisition time to LOS; the
+ * rate at each sample (0 when the link does not close or the elevation is
+ * below the minimum data elevation) is integrated with the trapezoid rule over
+ * the samples [data start, grid times inside, data end]. Time in each MODCOD
+ * gives each sample half of the intervals beside it. The worst margin is the
+ * lowest over the samples of the whole contact (AOS..LOS).
+ */
+import { lookFrom, newLook } from '../geometry/topocentric.js';
+import type { Look, Site, Target } from '../geometry/types.js';
+import { buildAtmosphereTable, rainModelled, type AtmosphereStationInput } from '../link/atmosphere/index.js';
+import type { AtmosphereTable } from '../link/atmosphere/types.js';
+import { prepareLink, evaluateLink } from '../link/budget.js';
+import { polarizationTiltDeg } from '../link/polarization.js';
+import { wavelengthM } from '../link/units.js';
+import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
+import type { LinkSettings, Radio, Scenario, Station } from '../scenario/types.js';
+import type { Geometry } from './contacts.js';
+import type { Contact, ContactLink } from './types.js';
+
+/** Frequency above which a missing rain climate is worth a warning, Hz. */
+export const RAIN_WARNING_ABOVE_HZ = 3e9;
+export const DEFAULT_LINK_STEP_S = 1;
+
+export interface LinkSetup {
+  /** PreparedLink by `${spacecraftId}|${stationId}` for the data radio. */
+  links: Map<string, PreparedLink>;
+  warnings: string[];
+}
+
+export const linkKey = (spacecraftId: string, stationId: string) => `${spacecraftId}|${stationId}`;
+
+/** Receive dish diameter for scintillation aperture averaging: given, or from the gain. */
+function effectiveDiameterM(station: Station, freqHz: number): { diameterM: number; efficiency: number } {
+  const rx = station.receiver;
+  const efficiency = rx.apertureEfficiency ?? 0.6;
+  if (rx.dishDiameterM !== undefined) return { diameterM: rx.dishDiameterM, efficiency };
+  const gainDbi = rx.gainDbi ?? 40;
+  const lambda = wavelengthM(freqHz);
+  return { diameterM: (lambda / Math.PI) * Math.sqrt(10 ** (gainDbi / 10) / efficiency), efficiency };
+}
+
+export function atmosphereInputFor(station: Station, radio: Radio, settings: LinkSettings): AtmosphereStationInput {
+  const c = station.climate;
+  const { diameterM, efficiency } = effectiveDiameterM(station, radio.frequencyHz);
+  return {
+    frequencyHz: radio.frequencyHz,
+    exceedancePercent: Number((100 - settings.availabilityPercent).toPrecision(12)),
+    latitudeDeg: station.latitudeDeg,
+    stationHeightKm: station.heightKm,
+    polarizationTiltDeg: polarizationTiltDeg(radio.polarization),
+    antennaDiameterM: diameterM,
+    apertureEfficiency: efficiency,
+    ...(c.rainRate001MmH !== undefined ? { rainRate001MmH: c.rainRate001MmH } : {}),
+    ...(c.rainHeightKm !== undefined ? { rainHeightKm: c.rainHeightKm } : {}),
+    surfaceWaterVapourDensityGM3: c.surfaceWaterVapourDensityGM3,
+    surfaceTemperatureK: c.surfaceTemperatureK,
+    surfacePressureHpa: c.surfacePressureHpa,
+    nWetMedian: c.nWetMedian,
+    ...(c.cloudLiquidWaterKgM2 !== undefined ? { cloudLiquidWaterKgM2: c.cloudLiquidWaterKgM2 } : {}),
+  };
+}
+
+/** Lowest elevation the station's mask allows, clamped to 0 (tables start there). */
+export function lowestMaskDeg(station: Station): number {
+  const m = station.mask;
+  const lowest = m.kind === 'constant' ? m.elevationDeg : Math.min(...m.elevationDeg);
+  return Math.max(0, lowest);
+}
+
+/** Builds the prepared budget of one radio at one station (atmosphere tables included). */
+export function prepareRadioAtStation(radio: Radio, station: Station, site: Site, settings: LinkSettings, minElevationDeg: number): PreparedLink {
+  const input = atmosphereInputFor(station, radio, settings);
+  const table: AtmosphereTable = buildAtmosphereTable(input, minElevationDeg);
+  const opts: Parameters<typeof prepareLink>[4] = {
+    stationGeocentricRadiusKm: Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]),
+  };
+  if (station.receiver.kind === 'gt') {
+    const { rainRate001MmH: _r, rainHeightKm: _h, cloudLiquidWaterKgM2: _c, ...clear } = input;
+    opts.clearSkyAtmosphere = buildAtmosphereTable(clear, Math.min(minElevationDeg, station.receiver.atElevationDeg));
+  }
+  return prepareLink(radio, station, settings, table, opts);
+}
+
+export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup {
+  const links = new Map<string, PreparedLink>();
+  const warnings: string[] = [];
+  const warnedRain = new Set<string>();
+  scenario.stations.forEach((station, i) => {
+    const site = geometry.sites[i]!;
+    for (const sc of scenario.spacecraft) {
+      const radio = sc.radios[0];
+      if (!radio) continue;
+      const input = atmosphereInputFor(station, radio, scenario.link);
+      if (!rainModelled(input) && radio.frequencyHz > RAIN_WARNING_ABOVE_HZ && !warnedRain.has(station.id)) {
+        warnedRain.add(station.id);
+        warnings.push(`${station.id}: no rain climate (rainRate001MmH, rainHeightKm); the rain term is not modelled above ${RAIN_WARNING_ABOVE_HZ / 1e9} GHz`);
+      }
+      links.set(linkKey(sc.id, station.id), prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station)));
+    }
+  });
+  return { links, warnings };
+}
+
+/** Running sums of one contact while its samples come in. */
+interface Accumulator {
+  contact: Contact;
+  link: PreparedLink;
+  site: Site;
+  dataStartMs: number;
+  dataEndMs: number;
+  lastMs: number;
+  lastRate: number;
+  lastModcod: string;
+  volumeBits: number;
+  closedS: number;
+  worstMarginDb: number;
+  worstAtMs: number;
+  worstElevationDeg: number;
+  peakRateBps: number;
+  timeInModcodS: Record<string, number>;
+  samples: number;
+}
+
+function modcodName(link: PreparedLink, s: LinkSample): string {
+  if (s.rateBps <= 0) return '';
+  if (link.codingKind === 'fixed') return link.codingName;
+  return link.modcodTable[s.modcodIndex]?.name ?? '';
+}
+
+/** Adds the sample at tMs to the contact's sums (trapezoid between consecutive samples). */
+function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): void {
+  acc.samples++;
+  if (s.marginDb < acc.worstMarginDb) {
+    acc.worstMarginDb = s.marginDb;
+    acc.worstAtMs = tMs;
+    acc.worstElevationDeg = look.elevationDeg;
+  }
+  const inData = tMs >= acc.dataStartMs && tMs <= acc.dataEndMs;
+  const rate = inData ? s.rateBps : 0;
+  const name = inData ? modcodName(acc.link, s) : '';
+  if (rate > acc.peakRateBps) acc.peakRateBps = rate;
+  if (inData && acc.lastMs >= acc.dataStartMs) {
+    const dtS = (tMs - acc.lastMs) / 1000;
+    acc.volumeBits += 0.5 * (acc.lastRate + rate) * dtS;
+    const half = 0.5 * dtS;
+    if (acc.lastRate > 0) {
+      acc.closedS += half;
+      acc.timeInModcodS[acc.lastModcod] = (acc.timeInModcodS[acc.lastModcod] ?? 0) + half;
+    }
+    if (rate > 0) {
+      acc.closedS += half;
+      acc.timeInModcodS[name] = (acc.timeInModcodS[name] ?? 0) + half;
+    }
+  }
+  if (inData) {
+    acc.lastMs = tMs;
+    acc.lastRate = rate;
+    acc.lastModcod = name;
+  }
+}
+
+export interface LinkRunStats {
+  linkSamples: number;
+  propagations: number;
+}
+
+/**
+ * Fills `contact.link` for every contact whose spacecraft has a data radio.
+ * Contacts are modified in place (they were made by this run).
+ */
+export function integrateContacts(
+  contacts: Contact[],
+  geometry: Geometry,
+  setup: LinkSetup,
+  settings: LinkSettings,
+  stepS: number = DEFAULT_LINK_STEP_S,
+): LinkRunStats {
+  const stepMs = stepS * 1000;
+  const siteIndex = new Map(geometry.sites.map((s, i) => [s.stationId, i]));
+  const state = new Float64Array(6);
+  const look = newLook();
+  const sample = newLinkSample();
+  const stats: LinkRunStats = { linkSamples: 0, propagations: 0 };
+  const acqMs = settings.acquisitionTimeS * 1000;
+
+  const bySpacecraft = new Map<string, Accumulator[]>();
+  for (const c of contacts) {
+    const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
+    if (!link) continue;
+    const site = geometry.sites[siteIndex.get(c.stationId) ?? -1];
+    if (!site) continue;
+    const dataStartMs = Math.min(c.aosMs + acqMs, c.losMs);
+    const acc: Accumulator = {
+      contact: c,
+      link,
+      site,
+      dataStartMs,
+      dataEndMs: c.losMs,
+      lastMs: -Infinity,
+      lastRate: 0,
+      lastModcod: '',
+      volumeBits: 0,
+      closedS: 0,
+      worstMarginDb: Infinity,
+      worstAtMs: c.aosMs,
+      worstElevationDeg: Number.NaN,
+      peakRateBps: 0,
+      timeInModcodS: {},
+      samples: 0,
+    };
+    const list = bySpacecraft.get(c.spacecraftId) ?? [];
+    list.push(acc);
+    bySpacecraft.set(c.spacecraftId, list);
+  }
+
+  for (const [scId, accs] of bySpacecraft) {
+    const target = geometry.targets.get(scId);
+    if (!target) continue;
+    // Events in time order: each contact's AOS, its data start, grid times, its LOS.
+    accs.sort((a, b) => a.contact.aosMs - b.contact.aosMs);
+    const evalAt = (acc: Accumulator, tMs: number, fresh: boolean) => {
+      if (fresh) {
+        stats.propagations++;
+        if (!target.stateEcefAt(tMs, state)) return;
+      }
+      lookFrom(acc.site, state, look);
+      evaluateLink(acc.link, look, sample);
+      stats.linkSamples++;
+      addSample(acc, tMs, look, sample);
+    };
+    const active: Accumulator[] = [];
+    let next = 0;
+    // grid index range covering all contacts of this spacecraft
+    const t0 = geometry.span.startMs;
+    let k = Math.ceil((accs[0]!.contact.aosMs - t0) / stepMs);
+    const lastLos = Math.max(...accs.map((a) => a.contact.losMs));
+    const kEnd = Math.floor((lastLos - t0) / stepMs);
+    for (; k <= kEnd + 1; k++) {
+      const tMs = k <= kEnd ? t0 + k * stepMs : Infinity;
+      // open contacts whose AOS comes before this grid time
+      while (next < accs.length && accs[next]!.contact.aosMs <= tMs) {
+        const acc = accs[next++]!;
+        evalAt(acc, acc.contact.aosMs, true);
+        if (acc.dataStartMs > acc.contact.aosMs) evalAt(acc, acc.dataStartMs, true);
+        active.push(acc);
+      }
+      // close contacts whose LOS comes before this grid time
+      for (let i = active.length - 1; i >= 0; i--) {
+        const acc = active[i]!;
+        if (acc.contact.losMs < tMs) {
+          if (acc.lastMs < acc.contact.losMs) evalAt(acc, acc.contact.losMs, true);
+          finish(acc);
+          active.splice(i, 1);
+        }
+      }
+      if (tMs === Infinity) break;
+      if (active.length === 0) {
+        if (next >= accs.length) break;
+        // jump to the grid point just before the next AOS
+        k = Math.max(k, Math.ceil((accs[next]!.contact.aosMs - t0) / stepMs) - 1);
+        continue;
+      }
+      stats.propagations++;
+      if (!target.stateEcefAt(tMs, state)) continue;
+      for (const acc of active) {
+        if (tMs <= acc.contact.aosMs || tMs >= acc.contact.losMs) continue;
+        lookFrom(acc.site, state, look);
+        evaluateLink(acc.link, look, sample);
+        stats.linkSamples++;
+        addSample(acc, tMs, look, sample);
+      }
+    }
+    for (const acc of active) {
+      if (acc.lastMs < acc.contact.losMs) evalAt(acc, acc.contact.losMs, true);
+      finish(acc);
+    }
+  }
+  return stats;
+}
+
+function finish(acc: Accumulator): void {
+  const link: ContactLink = {
+    radioId: acc.link.radioId,
+    volumeBits: acc.volumeBits,
+    dataStartMs: acc.dataStartMs,
+    dataEndMs: acc.dataEndMs,
+    closedS: acc.closedS,
+    worstMarginDb: acc.worstMarginDb,
+    worstMarginAtMs: acc.worstAtMs,
+    worstMarginElevationDeg: acc.worstElevationDeg,
+    peakRateBps: acc.peakRateBps,
+    timeInModcodS: acc.timeInModcodS,
+    samples: acc.samples,
+  };
+  acc.contact.link = link;
+}

@@ -1,0 +1,40 @@
+/** Plan stage types: contacts with their link results, and the plan as a whole. */
+import type { Pass } from '../geometry/types.js';
+import type { Span } from '../scenario/types.js';
+
+/** What the link carried over one contact, for one radio. */
+export interface ContactLink {
+  radioId: string;
+  /** Bits delivered: the rate integrated over the data part of the contact. */
+  volumeBits: number;
+  /** Data flows from AOS + acquisition time, above the minimum data elevation. */
+  dataStartMs: number;
+  dataEndMs: number;
+  /** Seconds during which the link closed (rate > 0). */
+  closedS: number;
+  worstMarginDb: number;
+  worstMarginAtMs: number;
+  worstMarginElevationDeg: number;
+  peakRateBps: number;
+  /** Seconds spent in each MODCOD (adaptive) or in the fixed code, closed only. */
+  timeInModcodS: Record<string, number>;
+  samples: number;
+}
+
+export interface Contact extends Pass {
+  durationS: number;
+  link?: ContactLink;
+}
+
+export interface PlanResult {
+  span: Span;
+  /** Link sampling step inside contacts, s. */
+  linkStepS: number;
+  availabilityPercent: number;
+  spacecraft: { id: string; name: string; priority: number }[];
+  stations: { id: string; name: string; timeZone: string }[];
+  /** All contacts, ordered by station (file order) then AOS. */
+  contacts: Contact[];
+  warnings: string[];
+  stats: { propagations: number; linkSamples: number };
+}

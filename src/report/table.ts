@@ -1,0 +1,35 @@
+/** Plain-text tables for the terminal: columns aligned, numbers right-aligned. */
+
+export interface Column {
+  header: string;
+  align?: 'left' | 'right';
+}
+
+export function renderTable(columns: Column[], rows: string[][]): string {
+  const widths = columns.map((c, i) => Math.max(c.header.length, ...rows.map((r) => (r[i] ?? '').length)));
+  const line = (cells: string[]) =>
+    cells
+      .map((cell, i) => {
+        const w = widths[i] ?? 0;
+        return columns[i]?.align === 'right' ? cell.padStart(w) : cell.padEnd(w);
+      })
+      .join('  ')
+      .trimEnd();
+  const out = [line(columns.map((c) => c.header)), line(widths.map((w) => '-'.repeat(w)))];
+  for (const r of rows) out.push(line(r));
+  return out.join('\n');
+}
+
+/** Fixed decimals, with "-" for a missing value. */
+export function fixed(value: number | undefined, decimals: number): string {
+  return value === undefined || !Number.isFinite(value) ? '-' : value.toFixed(decimals);
+}
+
+/** Bits in the unit a reader expects: Mbit, Gbit, Tbit. */
+export function formatBits(bits: number): string {
+  if (bits >= 1e12) return `${(bits / 1e12).toFixed(2)} Tbit`;
+  if (bits >= 1e9) return `${(bits / 1e9).toFixed(2)} Gbit`;
+  if (bits >= 1e6) return `${(bits / 1e6).toFixed(1)} Mbit`;
+  if (bits >= 1e3) return `${(bits / 1e3).toFixed(1)} kbit`;
+  return `${Math.round(bits)} bit`;
+}

@@ -1,0 +1,273 @@
+/**
+ * Loads and validates a scenario: a spacecraft file and a network file.
+ * Every problem in both files is collected and thrown together as one
+ * ScenarioError; nothing after this module reads a file.
+ *
+ * Defaults (documented in README "Scenario files"): priority 1; radio
+ * transmit loss 0 dB, polarisation RHCP, implementation loss 1 dB, required
+ * margin 3 dB; station mask 5 deg, pointing error 0 deg, one antenna, no set-up
+ * time; feed loss 0 dB at 290 K, antenna noise 10 K; stated G/T referred to
+ * 90 deg elevation; surface atmosphere of the ITU-R P.676-13 reference
+ * (1013.25 hPa, 288.15 K, 7.5 g/m3); Nwet 50 N-units; availability 99.5 %.
+ */
+import { DateTime } from 'luxon';
+import { ScenarioError, type Problem } from '../errors.js';
+import { readText, parseStructured, resolveBeside, zodProblems } from './read.js';
+import { spacecraftFileSchema, networkFileSchema, type SpacecraftEntry, type StationEntry, type RadioEntry } from './schema.js';
+import { parseTleText } from './tle.js';
+import { parseOmm } from './omm.js';
+import { resolveCoding } from './coding.js';
+import type { ElementSet, OrbitSource, Radio, Scenario, Spacecraft, Station, Span, Mask, Receiver, TxAntenna } from './types.js';
+
+export interface ScenarioFiles {
+  spacecraftFile: string;
+  networkFile: string;
+}
+
+export const DEFAULT_AVAILABILITY_PERCENT = 99.5;
+
+export function loadScenario(files: ScenarioFiles): Scenario {
+  const problems: Problem[] = [];
+  const fleet = loadFleet(files.spacecraftFile, problems);
+  const stations = loadNetwork(files.networkFile, problems);
+  if (problems.length > 0 || fleet === undefined || stations === undefined) throw new ScenarioError(problems);
+  return {
+    spacecraft: fleet.spacecraft,
+    stations,
+    ...(fleet.span ? { span: fleet.span } : {}),
+    link: fleet.link,
+    sources: { spacecraftFile: files.spacecraftFile, networkFile: files.networkFile },
+  };
+}
+
+function readData(file: string, problems: Problem[]): unknown {
+  const text = readText(file);
+  if (!text.ok) {
+    problems.push(...text.problems);
+    return undefined;
+  }
+  const data = parseStructured(text.value, file);
+  if (!data.ok) {
+    problems.push(...data.problems);
+    return undefined;
+  }
+  return data.value;
+}
+
+function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraft' | 'span' | 'link'> | undefined {
+  const data = readData(file, problems);
+  if (data === undefined) return undefined;
+  const parsed = spacecraftFileSchema.safeParse(data);
+  if (!parsed.success) {
+    problems.push(...zodProblems(file, data, parsed.error.issues));
+    return undefined;
+  }
+  const doc = parsed.data;
+  const before = problems.length;
+  checkUnique(doc.spacecraft.map((s) => s.id), file, 'spacecraft', problems);
+  const spacecraft = doc.spacecraft.map((entry, i) => toSpacecraft(entry, file, `spacecraft[${i}]`, problems));
+  let span: Span | undefined;
+  if (doc.window) {
+    const from = parseInstant(doc.window.from);
+    if (from === undefined) {
+      problems.push({ file, path: 'window.from', message: `${JSON.stringify(doc.window.from)} is not an ISO 8601 time (e.g. "2026-03-05T00:00:00Z")` });
+    } else {
+      span = { startMs: from, endMs: from + doc.window.days * 86_400_000 };
+    }
+  }
+  if (problems.length > before) return undefined;
+  return {
+    spacecraft,
+    ...(span ? { span } : {}),
+    link: {
+      availabilityPercent: doc.link?.availabilityPercent ?? DEFAULT_AVAILABILITY_PERCENT,
+      acquisitionTimeS: doc.link?.acquisitionTimeS ?? 0,
+      minDataElevationDeg: doc.link?.minDataElevationDeg ?? -5,
+    },
+  };
+}
+
+/** ISO 8601 instant to epoch ms; a time without a zone is UTC. */
+export function parseInstant(text: string): number | undefined {
+  const dt = DateTime.fromISO(text, { zone: 'utc', setZone: true });
+  return dt.isValid ? dt.toMillis() : undefined;
+}
+
+function checkUnique(ids: string[], file: string, path: string, problems: Problem[]): void {
+  const seen = new Map<string, number>();
+  ids.forEach((id, i) => {
+    const first = seen.get(id);
+    if (first !== undefined) {
+      problems.push({ file, path: `${path}[${i}].id`, message: `"${id}" is already used by ${path}[${first}]; ids must be unique` });
+    } else seen.set(id, i);
+  });
+}
+
+function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, problems: Problem[]): Spacecraft {
+  const orbit = toOrbit(entry.orbit, file, `${path}.orbit`, problems);
+  const radios = (entry.radios ?? []).map((r, j) => toRadio(r, file, `${path}.radios[${j}]`, problems));
+  checkUnique((entry.radios ?? []).map((r) => r.id), file, `${path}.radios`, problems);
+  return {
+    id: entry.id,
+    name: entry.name ?? entry.id,
+    priority: entry.priority ?? 1,
+    orbit,
+    radios,
+    ...(entry.recorder
+      ? {
+          recorder: {
+            capacityBits: entry.recorder.capacityGbit * 1e9,
+            generationBps: entry.recorder.generationMbps * 1e6,
+            initialFillBits: (entry.recorder.initialFillGbit ?? 0) * 1e9,
+          },
+        }
+      : {}),
+  };
+}
+
+function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, problems: Problem[]): OrbitSource {
+  if (orbit.moon) return { kind: 'moon' };
+  if (orbit.sky) return { kind: 'fixedSky', ...orbit.sky };
+  let sets: ElementSet[] = [];
+  if (orbit.tle !== undefined) sets = collect(parseTleText(orbit.tle, file, `${path}.tle`), problems);
+  else if (orbit.tleFile !== undefined) {
+    const target = resolveBeside(file, orbit.tleFile);
+    const text = readText(target, '');
+    if (!text.ok) problems.push(...text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.tleFile)` })));
+    else sets = collect(parseTleText(text.value, target, ''), problems);
+  } else if (orbit.omm !== undefined) {
+    const text = typeof orbit.omm === 'string' ? orbit.omm : JSON.stringify(orbit.omm);
+    sets = collect(parseOmm(text, file, `${path}.omm`, typeof orbit.omm === 'string' ? undefined : 'json'), problems);
+  } else if (orbit.ommFile !== undefined) {
+    const target = resolveBeside(file, orbit.ommFile);
+    const text = readText(target, '');
+    if (!text.ok) problems.push(...text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.ommFile)` })));
+    else sets = collect(parseOmm(text.value, target, ''), problems);
+  }
+  if (orbit.catalogNumber !== undefined) {
+    const wanted = String(orbit.catalogNumber).trim().replace(/^0+(?=.)/, '');
+    const all = sets;
+    sets = all.filter((s) => s.catalogNumber.trim().replace(/^0+(?=.)/, '') === wanted);
+    if (sets.length === 0 && all.length > 0) {
+      const found = [...new Set(all.map((s) => s.catalogNumber.trim()))].join(', ');
+      problems.push({ file, path: `${path}.catalogNumber`, message: `${JSON.stringify(orbit.catalogNumber)} matches no element set (found: ${found})` });
+    }
+  }
+  if (sets.length === 0 && problems.length === 0) problems.push({ file, path, message: 'holds no element set' });
+  return { kind: 'elements', sets };
+}
+
+function collect(result: { sets: ElementSet[]; problems: Problem[] }, problems: Problem[]): ElementSet[] {
+  problems.push(...result.problems);
+  return result.sets;
+}
+
+function toRadio(r: RadioEntry, file: string, path: string, problems: Problem[]): Radio {
+  const txPowerDbw = r.powerDbw ?? 10 * Math.log10(r.powerW ?? 1);
+  let antenna: TxAntenna;
+  if (r.antenna.pattern) {
+    const p = r.antenna.pattern;
+    if (p.offBoresightDeg.length !== p.gainDbi.length) {
+      problems.push({ file, path: `${path}.antenna.pattern`, message: `offBoresightDeg has ${p.offBoresightDeg.length} points but gainDbi has ${p.gainDbi.length}; they must match` });
+    }
+    for (let i = 1; i < p.offBoresightDeg.length; i++) {
+      if ((p.offBoresightDeg[i] ?? 0) <= (p.offBoresightDeg[i - 1] ?? 0)) {
+        problems.push({ file, path: `${path}.antenna.pattern.offBoresightDeg[${i}]`, message: `${p.offBoresightDeg[i]} must be greater than the point before it (angles ascend)` });
+        break;
+      }
+    }
+    antenna = { kind: 'pattern', offBoresightDeg: p.offBoresightDeg, gainDbi: p.gainDbi, pointing: p.pointing };
+  } else {
+    antenna = { kind: 'constant', gainDbi: r.antenna.gainDbi ?? 0 };
+  }
+  const coding = resolveCoding(r.coding, file, `${path}.coding`, problems);
+  return {
+    id: r.id,
+    frequencyHz: r.frequencyMHz * 1e6,
+    txPowerDbw,
+    txLossDb: r.txLossDb ?? 0,
+    antenna,
+    polarization: r.polarization ?? 'RHCP',
+    coding,
+    implementationLossDb: r.implementationLossDb ?? 1,
+    requiredMarginDb: r.requiredMarginDb ?? 3,
+  };
+}
+
+function loadNetwork(file: string, problems: Problem[]): Station[] | undefined {
+  const data = readData(file, problems);
+  if (data === undefined) return undefined;
+  const parsed = networkFileSchema.safeParse(data);
+  if (!parsed.success) {
+    problems.push(...zodProblems(file, data, parsed.error.issues));
+    return undefined;
+  }
+  const before = problems.length;
+  checkUnique(parsed.data.stations.map((s) => s.id), file, 'stations', problems);
+  const stations = parsed.data.stations.map((s, i) => toStation(s, file, `stations[${i}]`, problems));
+  return problems.length > before ? undefined : stations;
+}
+
+function toStation(s: StationEntry, file: string, path: string, problems: Problem[]): Station {
+  let mask: Mask = { kind: 'constant', elevationDeg: s.maskDeg ?? 5 };
+  if (s.horizon) {
+    const pts = [...s.horizon].sort((a, b) => a[0] - b[0]);
+    for (let i = 1; i < pts.length; i++) {
+      if (pts[i]![0] === pts[i - 1]![0]) {
+        problems.push({ file, path: `${path}.horizon`, message: `azimuth ${pts[i]![0]} appears twice; each azimuth once` });
+        break;
+      }
+    }
+    mask = { kind: 'profile', azimuthDeg: pts.map((p) => p[0] % 360), elevationDeg: pts.map((p) => p[1]) };
+  }
+  const a = s.antenna;
+  const rx = s.receiver;
+  let receiver: Receiver;
+  if (rx.gOverTDbK !== undefined) {
+    receiver = {
+      kind: 'gt',
+      gOverTDbK: rx.gOverTDbK,
+      atElevationDeg: rx.gOverTAtElevationDeg ?? 90,
+      ...(a.gainDbi !== undefined ? { gainDbi: a.gainDbi } : {}),
+      ...(a.dishDiameterM !== undefined ? { dishDiameterM: a.dishDiameterM, apertureEfficiency: a.apertureEfficiency ?? 0.6 } : {}),
+    };
+  } else {
+    const receiverNoiseTempK = rx.noiseTempK ?? 290 * (10 ** ((rx.noiseFigureDb ?? 0) / 10) - 1);
+    receiver = {
+      kind: 'chain',
+      ...(a.gainDbi !== undefined ? { gainDbi: a.gainDbi } : {}),
+      ...(a.dishDiameterM !== undefined ? { dishDiameterM: a.dishDiameterM, apertureEfficiency: a.apertureEfficiency ?? 0.6 } : {}),
+      receiverNoiseTempK,
+      feedLossDb: rx.feedLossDb ?? 0,
+      feedPhysicalTempK: rx.feedTempK ?? 290,
+      antennaNoiseTempK: rx.antennaNoiseK ?? 10,
+    };
+  }
+  if (a.gainDbi !== undefined && a.dishDiameterM !== undefined && rx.gOverTDbK === undefined) {
+    problems.push({ file, path: `${path}.antenna`, message: 'has both gainDbi and dishDiameterM; give one (the gain is computed from the dish)' });
+  }
+  const c = s.climate ?? {};
+  return {
+    id: s.id,
+    name: s.name ?? s.id,
+    latitudeDeg: s.latitudeDeg,
+    longitudeDeg: s.longitudeDeg > 180 ? s.longitudeDeg - 360 : s.longitudeDeg,
+    heightKm: s.heightM / 1000,
+    mask,
+    timeZone: s.timeZone,
+    receiver,
+    pointingErrorDeg: a.pointingErrorDeg ?? 0,
+    polarization: a.polarization ?? 'RHCP',
+    climate: {
+      ...(c.rainRate001MmH !== undefined ? { rainRate001MmH: c.rainRate001MmH } : {}),
+      ...(c.rainHeightKm !== undefined ? { rainHeightKm: c.rainHeightKm } : {}),
+      surfaceWaterVapourDensityGM3: c.waterVapourDensityGM3 ?? 7.5,
+      surfaceTemperatureK: c.temperatureK ?? 288.15,
+      surfacePressureHpa: c.pressureHpa ?? 1013.25,
+      nWetMedian: c.nWetMedian ?? 50,
+      ...(c.cloudLiquidWaterKgM2 !== undefined ? { cloudLiquidWaterKgM2: c.cloudLiquidWaterKgM2 } : {}),
+    },
+    antennaCount: a.count ?? 1,
+    setupTimeS: a.setupTimeS ?? 0,
+  };
+}

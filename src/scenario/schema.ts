@@ -1,0 +1,231 @@
+/**
+ * File formats of passbudget's own scenario files, validated with zod.
+ *
+ * A spacecraft file ("what flies") holds the mission's link settings, an
+ * optional default window, and the spacecraft with their orbits and radios.
+ * A network file ("where it lands") holds the ground stations.
+ *
+ * Alternatives (an orbit given as a TLE, an OMM, the Moon or a sky direction)
+ * are optional fields checked by "exactly one of" rules, not zod unions, so
+ * every message names the field and what is valid.
+ */
+import { z } from 'zod';
+import { IANAZone } from 'luxon';
+
+const finite = () => z.number({ message: 'must be a number' }).refine(Number.isFinite, { message: 'must be a finite number' });
+const range = (min: number, max: number) =>
+  finite().refine((v) => v >= min && v <= max, { message: `is outside ${min}..${max}` });
+const positive = () => finite().refine((v) => v > 0, { message: 'must be > 0' });
+const nonNegative = () => finite().refine((v) => v >= 0, { message: 'must be >= 0' });
+const id = () =>
+  z
+    .string({ message: 'must be a string' })
+    .regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,39}$/, { message: 'must be 1..40 letters, digits, ".", "_" or "-", starting with a letter or digit' });
+const text = () => z.string({ message: 'must be a string' }).min(1, { message: 'must not be empty' });
+
+/** Exactly one of the named keys must be present. */
+function exactlyOne<T extends Record<string, unknown>>(keys: (keyof T & string)[]) {
+  return (value: T, ctx: z.RefinementCtx) => {
+    const present = keys.filter((k) => value[k] !== undefined);
+    if (present.length !== 1) {
+      ctx.addIssue({
+        code: 'custom',
+        message:
+          present.length === 0
+            ? `needs exactly one of ${keys.join(', ')}`
+            : `has ${present.join(' and ')}; give exactly one of ${keys.join(', ')}`,
+      });
+    }
+  };
+}
+
+export const orbitSchema = z
+  .object({
+    tle: text().optional(),
+    tleFile: text().optional(),
+    omm: z.union([text(), z.record(z.string(), z.unknown()), z.array(z.record(z.string(), z.unknown()))]).optional(),
+    ommFile: text().optional(),
+    /** Picks the sets of one object from a file or text that holds several. */
+    catalogNumber: z.union([z.string(), z.number()], { message: 'must be a catalogue number (string or number)' }).optional(),
+    moon: z.literal(true, { message: 'must be true' }).optional(),
+    sky: z
+      .object({
+        rightAscensionDeg: range(0, 360),
+        declinationDeg: range(-90, 90),
+        rangeKm: positive(),
+      })
+      .strict()
+      .optional(),
+  })
+  .strict()
+  .superRefine(exactlyOne(['tle', 'tleFile', 'omm', 'ommFile', 'moon', 'sky']));
+
+export const antennaTxSchema = z
+  .object({
+    gainDbi: range(-30, 80).optional(),
+    pattern: z
+      .object({
+        offBoresightDeg: z.array(range(0, 180)).min(2, { message: 'needs at least 2 points' }),
+        gainDbi: z.array(range(-60, 80)).min(2, { message: 'needs at least 2 points' }),
+        pointing: z.enum(['nadir', 'tracking'], { message: 'must be "nadir" or "tracking"' }),
+      })
+      .strict()
+      .optional(),
+  })
+  .strict()
+  .superRefine(exactlyOne(['gainDbi', 'pattern']));
+
+export const codingSchema = z
+  .object({
+    /** A named code from the CCSDS table, or a MODCOD name of a table ("QPSK 1/2"). */
+    code: text().optional(),
+    /** Table a named MODCOD comes from, or the table for adaptive coding. */
+    table: text().optional(),
+    /** For a code of one's own: its threshold and efficiency. */
+    ebN0ThresholdDb: range(-5, 30).optional(),
+    spectralEfficiencyBitsPerSymbol: range(0.01, 10).optional(),
+    informationRateBps: positive().optional(),
+    adaptive: z.boolean({ message: 'must be true or false' }).optional(),
+    symbolRateBaud: positive().optional(),
+    rollOff: range(0, 1).optional(),
+  })
+  .strict();
+
+export const radioSchema = z
+  .object({
+    id: id(),
+    frequencyMHz: range(100, 400_000),
+    powerW: positive().optional(),
+    powerDbw: range(-60, 60).optional(),
+    txLossDb: range(0, 30).optional(),
+    antenna: antennaTxSchema,
+    polarization: z.enum(['RHCP', 'LHCP', 'linear-h', 'linear-v'], { message: 'must be RHCP, LHCP, linear-h or linear-v' }).optional(),
+    coding: codingSchema,
+    implementationLossDb: range(0, 20).optional(),
+    requiredMarginDb: range(0, 30).optional(),
+  })
+  .strict()
+  .superRefine(exactlyOne(['powerW', 'powerDbw']));
+
+export const spacecraftSchema = z
+  .object({
+    id: id(),
+    name: text().optional(),
+    priority: range(0, 1000).optional(),
+    orbit: orbitSchema,
+    radios: z.array(radioSchema).optional(),
+    recorder: z
+      .object({
+        capacityGbit: positive(),
+        generationMbps: nonNegative(),
+        initialFillGbit: nonNegative().optional(),
+      })
+      .strict()
+      .optional(),
+  })
+  .strict();
+
+export const spacecraftFileSchema = z
+  .object({
+    mission: text().optional(),
+    note: z.string().optional(),
+    window: z
+      .object({ from: text(), days: range(0.001, 366) })
+      .strict()
+      .optional(),
+    link: z
+      .object({
+        availabilityPercent: range(90, 99.999).optional(),
+        acquisitionTimeS: range(0, 3600).optional(),
+        minDataElevationDeg: range(-5, 90).optional(),
+      })
+      .strict()
+      .optional(),
+    spacecraft: z.array(spacecraftSchema).min(1, { message: 'must list at least one spacecraft' }),
+  })
+  .strict();
+
+const timeZone = () =>
+  text().refine((v) => IANAZone.isValidZone(v), { message: 'is not an IANA time zone (e.g. "Europe/Oslo", "UTC")' });
+
+export const stationSchema = z
+  .object({
+    id: id(),
+    name: text().optional(),
+    latitudeDeg: range(-90, 90),
+    longitudeDeg: range(-180, 360),
+    heightM: range(-500, 9000),
+    maskDeg: range(-5, 90).optional(),
+    horizon: z
+      .array(z.tuple([range(0, 360), range(-5, 90)], { message: 'each point must be [azimuthDeg, elevationDeg]' }))
+      .min(2, { message: 'needs at least 2 [azimuthDeg, elevationDeg] points' })
+      .optional(),
+    timeZone: timeZone(),
+    antenna: z
+      .object({
+        dishDiameterM: positive().optional(),
+        apertureEfficiency: finite()
+          .refine((v) => v > 0 && v <= 1, { message: 'must be in (0, 1]' })
+          .optional(),
+        gainDbi: range(-10, 90).optional(),
+        pointingErrorDeg: range(0, 10).optional(),
+        polarization: z.enum(['RHCP', 'LHCP', 'linear-h', 'linear-v'], { message: 'must be RHCP, LHCP, linear-h or linear-v' }).optional(),
+        count: z.number().int({ message: 'must be a whole number' }).min(1, { message: 'must be >= 1' }).max(20, { message: 'must be <= 20' }).optional(),
+        setupTimeS: range(0, 3600).optional(),
+      })
+      .strict()
+      .superRefine((a, ctx) => {
+        if (a.gainDbi === undefined && a.dishDiameterM === undefined) {
+          ctx.addIssue({ code: 'custom', message: 'needs dishDiameterM (with apertureEfficiency) or gainDbi' });
+        }
+      }),
+    receiver: z
+      .object({
+        noiseTempK: positive().optional(),
+        noiseFigureDb: range(0, 20).optional(),
+        feedLossDb: range(0, 10).optional(),
+        feedTempK: range(0, 400).optional(),
+        antennaNoiseK: range(0, 1000).optional(),
+        gOverTDbK: range(-40, 70).optional(),
+        gOverTAtElevationDeg: range(0, 90).optional(),
+      })
+      .strict()
+      .superRefine(exactlyOne(['noiseTempK', 'noiseFigureDb', 'gOverTDbK'])),
+    climate: z
+      .object({
+        rainRate001MmH: range(0, 300).optional(),
+        rainHeightKm: range(0, 8).optional(),
+        waterVapourDensityGM3: range(0, 40).optional(),
+        temperatureK: range(180, 340).optional(),
+        pressureHpa: range(300, 1100).optional(),
+        nWetMedian: range(0, 200).optional(),
+        cloudLiquidWaterKgM2: range(0, 10).optional(),
+      })
+      .strict()
+      .superRefine((c, ctx) => {
+        if ((c.rainRate001MmH === undefined) !== (c.rainHeightKm === undefined)) {
+          ctx.addIssue({ code: 'custom', message: 'rainRate001MmH and rainHeightKm go together (ITU-R P.837 and P.839 values for the site); give both or neither' });
+        }
+      })
+      .optional(),
+  })
+  .strict()
+  .superRefine((s, ctx) => {
+    if (s.maskDeg !== undefined && s.horizon !== undefined) {
+      ctx.addIssue({ code: 'custom', message: 'has maskDeg and horizon; give one of them' });
+    }
+  });
+
+export const networkFileSchema = z
+  .object({
+    network: text().optional(),
+    note: z.string().optional(),
+    stations: z.array(stationSchema).min(1, { message: 'must list at least one station' }),
+  })
+  .strict();
+
+export type SpacecraftFile = z.infer<typeof spacecraftFileSchema>;
+export type SpacecraftEntry = z.infer<typeof spacecraftSchema>;
+export type RadioEntry = z.infer<typeof radioSchema>;
+export type NetworkFile = z.infer<typeof networkFileSchema>;
+export type StationEntry = z.infer<typeof stationSchema>;

@@ -1,0 +1,30 @@
+/**
+ * Time formatting at the edges. Inside the program time is epoch ms; every
+ * printed time is ISO 8601 UTC ("2026-03-05T04:12:33.4Z" style, to 0.1 s
+ * by default) unless a zone is asked for.
+ */
+import { DateTime } from 'luxon';
+
+/** ISO 8601 UTC with `decimals` fractional-second digits (0..3). */
+export function isoUtc(tMs: number, decimals = 1): string {
+  const scale = 10 ** (3 - decimals);
+  const rounded = Math.round(tMs / scale) * scale;
+  const s = new Date(rounded).toISOString(); // 2026-03-05T04:12:33.400Z
+  if (decimals === 3) return s;
+  return decimals === 0 ? `${s.slice(0, 19)}Z` : `${s.slice(0, 20 + decimals)}Z`;
+}
+
+/** ISO 8601 in an IANA zone with its offset, to the second. */
+export function isoInZone(tMs: number, zone: string): string {
+  return DateTime.fromMillis(Math.round(tMs), { zone }).toISO({ suppressMilliseconds: true }) ?? isoUtc(tMs, 0);
+}
+
+/** "1h 02m 03s" style, for tables. */
+export function formatDuration(seconds: number): string {
+  const s = Math.round(seconds);
+  const h = Math.floor(s / 3600);
+  const m = Math.floor((s % 3600) / 60);
+  const r = s % 60;
+  if (h > 0) return `${h}h${String(m).padStart(2, '0')}m${String(r).padStart(2, '0')}s`;
+  return `${m}m${String(r).padStart(2, '0')}s`;
+}
