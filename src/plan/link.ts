@@ -23,7 +23,7 @@ import { wavelengthM } from '../link/units.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { LinkSettings, Radio, Scenario, Station } from '../scenario/types.js';
 import type { Geometry } from './contacts.js';
-import type { Contact, ContactLink } from './types.js';
+import { VOLUME_BIN_MS, type Contact, type ContactLink } from './types.js';
 
 /** Frequency above which a missing rain climate is worth a warning, Hz. */
 export const RAIN_WARNING_ABOVE_HZ = 3e9;
@@ -127,6 +127,9 @@ interface Accumulator {
   peakRateBps: number;
   timeInModcodS: Record<string, number>;
   samples: number;
+  binStartMs: number;
+  /** Volume per 15-min bin (fractional while integrating). */
+  bins: number[];
 }
 
 function modcodName(link: PreparedLink, s: LinkSample): string {
@@ -149,7 +152,12 @@ function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): vo
   if (rate > acc.peakRateBps) acc.peakRateBps = rate;
   if (inData && acc.lastMs >= acc.dataStartMs) {
     const dtS = (tMs - acc.lastMs) / 1000;
-    acc.volumeBits += 0.5 * (acc.lastRate + rate) * dtS;
+    const dv = 0.5 * (acc.lastRate + rate) * dtS;
+    acc.volumeBits += dv;
+    // the interval goes to the bin of its midpoint (intervals are one step long)
+    const bin = Math.floor((0.5 * (tMs + acc.lastMs) - acc.binStartMs) / VOLUME_BIN_MS);
+    while (acc.bins.length <= bin) acc.bins.push(0);
+    acc.bins[bin]! += dv;
     const half = 0.5 * dtS;
     if (acc.lastRate > 0) {
       acc.closedS += half;
@@ -215,6 +223,8 @@ export function integrateContacts(
       peakRateBps: 0,
       timeInModcodS: {},
       samples: 0,
+      binStartMs: Math.floor(c.aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS,
+      bins: [],
     };
     const list = bySpacecraft.get(c.spacecraftId) ?? [];
     list.push(acc);
@@ -286,10 +296,25 @@ export function integrateContacts(
   return stats;
 }
 
+/** Whole bits per bin by rounding the running sum, so the bins add up exactly to the total. */
+export function wholeBitBins(bins: readonly number[]): { bins: number[]; totalBits: number } {
+  const out: number[] = [];
+  let cum = 0;
+  let prevRounded = 0;
+  for (const b of bins) {
+    cum += b;
+    const r = Math.round(cum);
+    out.push(r - prevRounded);
+    prevRounded = r;
+  }
+  return { bins: out, totalBits: prevRounded };
+}
+
 function finish(acc: Accumulator): void {
+  const whole = wholeBitBins(acc.bins);
   const link: ContactLink = {
     radioId: acc.link.radioId,
-    volumeBits: acc.volumeBits,
+    volumeBits: whole.totalBits,
     dataStartMs: acc.dataStartMs,
     dataEndMs: acc.dataEndMs,
     closedS: acc.closedS,
@@ -299,6 +324,8 @@ function finish(acc: Accumulator): void {
     peakRateBps: acc.peakRateBps,
     timeInModcodS: acc.timeInModcodS,
     samples: acc.samples,
+    binStartMs: acc.binStartMs,
+    volumeBinsBits: whole.bins,
   };
   acc.contact.link = link;
 }

@@ -5,7 +5,7 @@ import type { Span } from '../scenario/types.js';
 /** What the link carried over one contact, for one radio. */
 export interface ContactLink {
   radioId: string;
-  /** Bits delivered: the rate integrated over the data part of the contact. */
+  /** Bits delivered: the rate integrated over the data part of the contact, whole bits. */
   volumeBits: number;
   /** Data flows from AOS + acquisition time, above the minimum data elevation. */
   dataStartMs: number;
@@ -19,7 +19,17 @@ export interface ContactLink {
   /** Seconds spent in each MODCOD (adaptive) or in the fixed code, closed only. */
   timeInModcodS: Record<string, number>;
   samples: number;
+  /**
+   * The volume split into 15-minute UTC bins (every time zone's offset is a
+   * multiple of 15 min, so any zone's day boundary falls on a bin edge):
+   * bin i covers [binStartMs + i * VOLUME_BIN_MS, ...). Whole bits, summing
+   * exactly to volumeBits.
+   */
+  binStartMs: number;
+  volumeBinsBits: number[];
 }
+
+export const VOLUME_BIN_MS = 15 * 60 * 1000;
 
 export interface Contact extends Pass {
   durationS: number;

@@ -134,7 +134,7 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
     const target = resolveBeside(file, orbit.tleFile);
     const text = readText(target, '');
     if (!text.ok) problems.push(...text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.tleFile)` })));
-    else sets = collect(parseTleText(text.value, target, ''), problems);
+    else sets = collect(named(parseTleText(text.value, target, ''), `${file}: ${path}.tleFile`), problems);
   } else if (orbit.omm !== undefined) {
     const text = typeof orbit.omm === 'string' ? orbit.omm : JSON.stringify(orbit.omm);
     sets = collect(parseOmm(text, file, `${path}.omm`, typeof orbit.omm === 'string' ? undefined : 'json'), problems);
@@ -142,7 +142,7 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
     const target = resolveBeside(file, orbit.ommFile);
     const text = readText(target, '');
     if (!text.ok) problems.push(...text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.ommFile)` })));
-    else sets = collect(parseOmm(text.value, target, ''), problems);
+    else sets = collect(named(parseOmm(text.value, target, ''), `${file}: ${path}.ommFile`), problems);
   }
   if (orbit.catalogNumber !== undefined) {
     const wanted = String(orbit.catalogNumber).trim().replace(/^0+(?=.)/, '');
@@ -155,6 +155,11 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
   }
   if (sets.length === 0 && problems.length === 0) problems.push({ file, path, message: 'holds no element set' });
   return { kind: 'elements', sets };
+}
+
+/** Problems in a file named by another say which field named it. */
+function named(result: { sets: ElementSet[]; problems: Problem[] }, by: string): { sets: ElementSet[]; problems: Problem[] } {
+  return { sets: result.sets, problems: result.problems.map((p) => ({ ...p, message: `${p.message} (named by ${by})` })) };
 }
 
 function collect(result: { sets: ElementSet[]; problems: Problem[] }, problems: Problem[]): ElementSet[] {
