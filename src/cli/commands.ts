@@ -3,10 +3,12 @@ import type { Command } from 'commander';
 import type { CliIo } from './io.js';
 import { registerCheck } from './check.js';
 import { registerPlan } from './plan.js';
+import { registerBudget } from './budget.js';
 
 export type SetExit = (code: number) => void;
 
 export function registerCommands(program: Command, io: CliIo, setExit: SetExit): void {
   registerPlan(program, io, setExit);
   registerCheck(program, io, setExit);
+  registerBudget(program, io, setExit);
 }

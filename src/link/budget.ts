@@ -35,7 +35,7 @@ import {
   pointingLossDb,
 } from './antenna.js';
 import { dopplerShiftHz } from './doppler.js';
-import { freeSpaceLossDb } from './free-space.js';
+import { freeSpaceLossDb, fluxDensityDbwM2 } from './free-space.js';
 import { carrierToNoiseDensityDbHz } from './link-equation.js';
 import { bestModcod, lowestThresholdModcod } from './modcod/acm.js';
 import { occupiedBandwidthHz, shannonCapacityBps } from './modcod/shannon.js';
@@ -235,6 +235,7 @@ export function prepareLink(
     pointingErrorDeg: station.pointingErrorDeg,
     pointingLossDb: pLossDb,
     polarizationLossDb: polLossDb,
+    extraLossDb: 0,
     codingKind: coding.kind,
     codingName,
     implementationLossDb: radio.implementationLossDb,
@@ -302,7 +303,7 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample): void
   out.pointingLossDb = p.pointingLossDb;
   out.polarizationLossDb = p.polarizationLossDb;
 
-  const lossesDb = out.freeSpaceLossDb + out.atmosphereDb + p.pointingLossDb + p.polarizationLossDb;
+  const lossesDb = out.freeSpaceLossDb + out.atmosphereDb + p.pointingLossDb + p.polarizationLossDb + p.extraLossDb;
   const cN0DbHz = carrierToNoiseDensityDbHz(out.eirpDbw, lossesDb, out.gOverTDbK);
   out.cN0DbHz = cN0DbHz;
 
@@ -362,6 +363,8 @@ export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
   add('Atmosphere total', -s.atmosphereDb, 'dB', 'ITU-R P.618 sec. 2.5 combination');
   add('Pointing loss', -s.pointingLossDb, 'dB', `12 (${p.pointingErrorDeg} / ${p.rxBeamwidthDeg.toPrecision(3)} deg)^2, common practice`);
   add('Polarisation mismatch', -s.polarizationLossDb, 'dB', `${p.txPolarization} -> ${p.rxPolarization}, polarization.ts`);
+  if (p.extraLossDb !== 0) add('Other losses', -p.extraLossDb, 'dB', 'given by the user');
+  add('Power flux density at the station (free space)', fluxDensityDbwM2(s.eirpDbw, look.rangeKm), 'dBW/m2', 'EIRP / (4 pi d^2)');
   add('Receive antenna gain', s.rxGainDbi, 'dBi', p.receiverKind === 'chain' ? 'eta (pi D / lambda)^2 or stated' : p.referenceNoiseNote);
   add('Sky noise temperature', s.skyNoiseTempK, 'K', 'ITU-R P.618 sec. 3');
   if (p.receiverKind === 'chain') {
@@ -371,6 +374,12 @@ export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
     add('Stated G/T', p.statedGOverTDbK, 'dB/K', `station, clear sky at ${p.statedAtElevationDeg} deg`);
     add('System noise temperature', s.systemNoiseTempK, 'K', 'Tsys_ref + (Tsky - Tsky_ref), noise.ts');
   }
+  add(
+    'Received carrier power',
+    s.eirpDbw - s.freeSpaceLossDb - s.atmosphereDb - s.pointingLossDb - s.polarizationLossDb - p.extraLossDb + s.rxGainDbi,
+    'dBW',
+    'EIRP - losses + G_rx (Friis)',
+  );
   add('G/T', s.gOverTDbK, 'dB/K', 'noise.ts');
   add("Boltzmann's constant", BOLTZMANN_EXACT_DBW_PER_K_HZ, 'dBW/(K.Hz)', 'BIPM SI 9th ed. (2019), exact k');
   add('C/N0', s.cN0DbHz, 'dB-Hz', 'EIRP - losses + G/T - 10 log10 k');

@@ -51,6 +51,8 @@ export interface PreparedLink {
   readonly pointingErrorDeg: number;
   readonly pointingLossDb: number;
   readonly polarizationLossDb: number;
+  /** Other losses given by the user (e.g. a handbook's receive feeder loss), dB; 0 by default. */
+  readonly extraLossDb: number;
 
   // --- coding
   readonly codingKind: 'fixed' | 'adaptive';

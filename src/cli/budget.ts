@@ -1,0 +1,66 @@
+/** `passbudget budget`: one link budget, term by term, at an elevation or range. */
+import { Command, Option } from 'commander';
+import { UsageError } from '../errors.js';
+import { loadScenario } from '../scenario/load.js';
+import { demoFiles } from '../scenario/paths.js';
+import { singleBudget, type SingleBudgetRequest } from '../plan/single.js';
+import { renderBudgetTable, renderBudgetJson } from '../report/budget.js';
+import type { CliIo } from './io.js';
+import type { SetExit } from './commands.js';
+
+function num(flag: string, text: string | undefined, min: number, max: number): number | undefined {
+  if (text === undefined) return undefined;
+  const v = Number(text);
+  if (!Number.isFinite(v) || v < min || v > max) throw new UsageError(`${flag}: "${text}" must be a number in ${min}..${max}`);
+  return v;
+}
+
+interface Raw {
+  spacecraft?: string;
+  network?: string;
+  spacecraftId: string;
+  stationId: string;
+  radioId?: string;
+  elevation?: string;
+  rangeKm?: string;
+  atmosphereDb?: string;
+  pointingLossDb?: string;
+  extraLossDb?: string;
+  format: 'table' | 'json';
+}
+
+export function registerBudget(program: Command, io: CliIo, setExit: SetExit): void {
+  program
+    .command('budget')
+    .description('one downlink budget, term by term with units and sources, at a given elevation or slant range')
+    .option('--spacecraft <file>', 'spacecraft file; default: the bundled demo fleet')
+    .option('--network <file>', 'ground network file; default: the bundled demo network')
+    .requiredOption('--spacecraft-id <id>', 'spacecraft whose radio transmits')
+    .requiredOption('--station-id <id>', 'receiving station')
+    .option('--radio-id <id>', 'radio of the spacecraft (default: its first)')
+    .option('--elevation <deg>', 'elevation, deg (0..90)')
+    .option('--range-km <km>', 'slant range, km')
+    .option('--atmosphere-db <dB>', 'replace the ITU-R atmosphere by this total, dB (to follow a handbook budget)')
+    .option('--pointing-loss-db <dB>', 'replace the computed pointing loss, dB')
+    .option('--extra-loss-db <dB>', 'other losses to include, dB (e.g. a receive feeder loss)')
+    .addOption(new Option('--format <format>', 'output format').choices(['table', 'json']).default('table'))
+    .action((raw: Raw) => {
+      const demo = demoFiles();
+      const scenario = loadScenario({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile });
+      const req: SingleBudgetRequest = { spacecraftId: raw.spacecraftId, stationId: raw.stationId };
+      if (raw.radioId !== undefined) req.radioId = raw.radioId;
+      const el = num('--elevation', raw.elevation, 0, 90);
+      const range = num('--range-km', raw.rangeKm, 1, 1e10);
+      const atm = num('--atmosphere-db', raw.atmosphereDb, 0, 100);
+      const point = num('--pointing-loss-db', raw.pointingLossDb, 0, 50);
+      const extra = num('--extra-loss-db', raw.extraLossDb, 0, 100);
+      if (el !== undefined) req.elevationDeg = el;
+      if (range !== undefined) req.rangeKm = range;
+      if (atm !== undefined) req.atmosphereDb = atm;
+      if (point !== undefined) req.pointingLossDb = point;
+      if (extra !== undefined) req.extraLossDb = extra;
+      const b = singleBudget(scenario, req);
+      io.out(raw.format === 'json' ? renderBudgetJson(b) : renderBudgetTable(b));
+      setExit(0);
+    });
+}

@@ -1,0 +1,27 @@
+/** Renders one link budget term by term, like a handbook budget. */
+import type { SingleBudget } from '../plan/single.js';
+import { renderTable } from './table.js';
+
+function decimalsFor(unit: string): number {
+  if (unit === 'bit/s' || unit === 'baud' || unit === 'Hz') return 0;
+  if (unit === 'km' || unit === 'K' || unit === 'MHz') return 1;
+  return 2;
+}
+
+export function renderBudgetTable(b: SingleBudget): string {
+  const rows = b.terms.map((t) => [t.name, t.value.toFixed(decimalsFor(t.unit)), t.unit, t.source]);
+  const head = `Link budget: ${b.spacecraftId} radio ${b.radioId} -> ${b.stationId} at ${b.look.elevationDeg.toFixed(2)} deg elevation, ${b.look.rangeKm.toFixed(1)} km`;
+  return `${head}\n\n${renderTable([{ header: 'term' }, { header: 'value', align: 'right' }, { header: 'unit' }, { header: 'source' }], rows)}\n`;
+}
+
+export function renderBudgetJson(b: SingleBudget): string {
+  const doc = {
+    spacecraft: b.spacecraftId,
+    station: b.stationId,
+    radio: b.radioId,
+    elevation_deg: Number(b.look.elevationDeg.toFixed(6)),
+    range_km: Number(b.look.rangeKm.toFixed(6)),
+    terms: b.terms.map((t) => ({ name: t.name, value: Number(t.value.toPrecision(10)), unit: t.unit, source: t.source })),
+  };
+  return JSON.stringify(doc, null, 2) + '\n';
+}
