@@ -58,6 +58,8 @@ export interface Pass {
   /** True when the window was cut by the start (AOS) or end (LOS) of the span. */
   aosClipped: boolean;
   losClipped: boolean;
+  /** True when LOS is where the target's track ended (SGP4 failure such as decay). */
+  losTrackEnded?: boolean;
 }
 
 export interface SearchOptions {
@@ -67,6 +69,11 @@ export interface SearchOptions {
   edgeToleranceS: number;
   /** Iteration limit of each refinement; exceeding it is a bug and throws. */
   maxIterations: number;
+  /** Peak (max elevation) time tolerance, s; default DEFAULT_PEAK_TOLERANCE_S. */
+  peakToleranceS?: number;
 }
+
+/** Default peak-time tolerance, s: elevation is flat at the peak (error ~1e-5 deg at 0.1 s). */
+export const DEFAULT_PEAK_TOLERANCE_S = 0.1;
 
 export const DEFAULT_SEARCH: SearchOptions = { edgeToleranceS: 0.01, maxIterations: 200 };
