@@ -4,6 +4,11 @@ import { loadScenario } from '../scenario/load.js';
 import { runPlan } from '../plan/run.js';
 import { renderPlanTable, renderPlanJson, renderPlanCsv } from '../report/plan.js';
 import { writeOutputs } from '../report/write.js';
+import { dailyTotals, spacecraftTotals, type DayMode } from '../plan/daily.js';
+import { highestVolumeContacts, seriesForContacts } from '../plan/series.js';
+import { dailyRecord, renderDailyCsv, renderDailyTable, spacecraftTotalRecord } from '../report/daily.js';
+import { renderCalendars } from '../report/calendar.js';
+import { renderReportHtml } from '../report/html/index.js';
 import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
@@ -11,24 +16,41 @@ import type { SetExit } from './commands.js';
 export function registerPlan(program: Command, io: CliIo, setExit: SetExit): void {
   addCommonOptions(
     program.command('plan').description('contact windows of every spacecraft over every station, with the data volume of each contact'),
-  ).action((raw) => {
-    const opts = readCommonOptions(raw);
-    const scenario = loadScenario(opts.files);
-    const span = spanFor(opts, scenario, io.nowMs());
-    const plan = runPlan(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
-    const json = renderPlanJson(plan);
-    const csv = renderPlanCsv(plan);
-    if (opts.format === 'json') io.out(json);
-    else if (opts.format === 'csv') io.out(csv);
-    else io.out(renderPlanTable(plan, opts.zone));
-    for (const w of plan.warnings) io.err(`warning: ${w}\n`);
-    if (opts.write) {
-      const written = writeOutputs(opts.outDir, [
-        { name: 'plan.json', content: json },
-        { name: 'contacts.csv', content: csv },
-      ]);
-      if (opts.format === 'table') io.out(`\nwrote ${written.join(', ')}\n`);
-    }
-    setExit(0);
-  });
+  )
+    .option('--local-days', "daily totals over each station's local days (its IANA zone) instead of UTC days")
+    .action((raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean }) => {
+      const opts = readCommonOptions(raw);
+      const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
+      const scenario = loadScenario(opts.files);
+      const span = spanFor(opts, scenario, io.nowMs());
+      const plan = runPlan(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
+      const daily = dailyTotals(plan, dayMode);
+      const totals = spacecraftTotals(plan);
+      const json = renderPlanJson(plan, { daily: daily.map(dailyRecord), spacecraft_totals: totals.map(spacecraftTotalRecord) });
+      const csv = renderPlanCsv(plan);
+      if (opts.format === 'json') io.out(json);
+      else if (opts.format === 'csv') io.out(csv);
+      else io.out(renderPlanTable(plan, opts.zone) + '\n' + renderDailyTable(daily, dayMode, totals));
+      for (const w of plan.warnings) io.err(`warning: ${w}\n`);
+      if (opts.write) {
+        const written = writeOutputs(opts.outDir, [
+          { name: 'plan.json', content: json },
+          { name: 'contacts.csv', content: csv },
+          { name: 'daily.csv', content: renderDailyCsv(daily) },
+          ...renderCalendars(plan),
+          {
+            name: 'report.html',
+            content: renderReportHtml({
+              plan,
+              dayMode,
+              daily,
+              spacecraftTotals: totals,
+              series: seriesForContacts(scenario, span, highestVolumeContacts(plan)),
+            }),
+          },
+        ]);
+        if (opts.format === 'table') io.out(`\nwrote ${written.join(', ')}\n`);
+      }
+      setExit(0);
+    });
 }

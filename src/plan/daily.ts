@@ -1,0 +1,173 @@
+/**
+ * Daily totals per station, and totals per spacecraft over the span.
+ *
+ * Days: UTC calendar days, or each station's own local calendar days in its
+ * IANA time zone (luxon, used once per day boundary, never per sample). Every
+ * day that the span touches is listed, days without contacts too. A local day
+ * at a daylight-saving change is 23 or 25 hours long and is flagged; a first
+ * or last day only partly inside the span is flagged `partial`.
+ *
+ * Rules (each sums exactly over the days to the per-contact figures):
+ * - volumeBits: the contact's 15-minute UTC volume bins (ContactLink.volumeBinsBits)
+ *   whose bin start falls in [dayStartMs, dayEndMs). Every zone offset in use is a
+ *   multiple of 15 min, so a day boundary is a bin edge and no bin is split; a
+ *   zone whose day boundary is not a bin edge is refused (ModelRangeError).
+ *   Whole bits, exact integer sums.
+ * - contactCount: a contact counts on the day its AOS falls in (a window cut by
+ *   the span start counts on the first day). Each contact is counted once.
+ * - contactTimeS: the part of [AOS, LOS] inside [dayStartMs, dayEndMs): a contact
+ *   across midnight is split at the day boundary.
+ */
+import { DateTime } from 'luxon';
+import { ModelRangeError } from '../errors.js';
+import type { Span } from '../scenario/types.js';
+import { VOLUME_BIN_MS, type Contact, type PlanResult } from './types.js';
+
+export type DayMode = { kind: 'utc' } | { kind: 'local' };
+
+export interface DailyRow {
+  stationId: string;
+  /** 'UTC' for UTC days, else the station's IANA zone. */
+  timeZone: string;
+  /** Calendar date of the day in its zone, YYYY-MM-DD. */
+  day: string;
+  dayStartMs: number;
+  dayEndMs: number;
+  /** Length of the day, h: 24, or 23 / 25 at a daylight-saving change. */
+  dayHours: number;
+  /** True when the day is not 24 h long (daylight-saving change). */
+  dstChange: boolean;
+  /** True when the span covers only part of the day (first or last day). */
+  partial: boolean;
+  volumeBits: number;
+  contactCount: number;
+  contactTimeS: number;
+}
+
+export interface SpacecraftTotal {
+  spacecraftId: string;
+  contactCount: number;
+  /** Sum of contact durations over all stations (overlapping contacts at two stations both count). */
+  contactTimeS: number;
+  volumeBits: number;
+}
+
+const HOUR_MS = 3_600_000;
+const DAY_MS = 86_400_000;
+
+/** Day boundaries [start, end) of the days the span touches, in one zone. */
+export function daysOfSpan(span: Span, zone: string): { day: string; startMs: number; endMs: number }[] {
+  const days: { day: string; startMs: number; endMs: number }[] = [];
+  if (zone === 'UTC') {
+    for (let t = Math.floor(span.startMs / DAY_MS) * DAY_MS; t < span.endMs; t += DAY_MS) {
+      days.push({ day: new Date(t).toISOString().slice(0, 10), startMs: t, endMs: t + DAY_MS });
+    }
+    return days;
+  }
+  let d = DateTime.fromMillis(span.startMs, { zone }).startOf('day');
+  // zones were checked when the scenario was loaded: an invalid one here is a bug
+  if (!d.isValid) throw new Error(`daily totals: "${zone}" is not an IANA time zone`);
+  while (d.toMillis() < span.endMs) {
+    const next = d.plus({ days: 1 }).startOf('day');
+    days.push({ day: d.toISODate() ?? '', startMs: d.toMillis(), endMs: next.toMillis() });
+    d = next;
+  }
+  return days;
+}
+
+/** Index of the day holding tMs (days sorted, contiguous), or -1. */
+function dayIndex(days: readonly { startMs: number; endMs: number }[], tMs: number): number {
+  let lo = 0;
+  let hi = days.length - 1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1;
+    const d = days[mid]!;
+    if (tMs < d.startMs) hi = mid - 1;
+    else if (tMs >= d.endMs) lo = mid + 1;
+    else return mid;
+  }
+  return -1;
+}
+
+/**
+ * Daily rows, ordered by station (plan order) then day. Throws when a
+ * contact's volume bin falls outside every day (a bug: bins lie inside the span).
+ */
+export function dailyTotals(plan: PlanResult, mode: DayMode): DailyRow[] {
+  const rows: DailyRow[] = [];
+  const byStation = new Map<string, Contact[]>();
+  for (const c of plan.contacts) {
+    const list = byStation.get(c.stationId) ?? [];
+    list.push(c);
+    byStation.set(c.stationId, list);
+  }
+  for (const st of plan.stations) {
+    const zone = mode.kind === 'utc' ? 'UTC' : st.timeZone;
+    const days = daysOfSpan(plan.span, zone);
+    for (const d of days) {
+      const offBinMs = ((d.startMs % VOLUME_BIN_MS) + VOLUME_BIN_MS) % VOLUME_BIN_MS;
+      if (offBinMs !== 0) {
+        throw new ModelRangeError(
+          'daily totals',
+          `${st.id}: start of ${d.day} in ${zone}, minutes past a 15-minute UTC edge`,
+          offBinMs / 60_000,
+          '0: a zone whose UTC offset is a whole multiple of 15 min',
+        );
+      }
+    }
+    const stationRows: DailyRow[] = days.map((d) => {
+      const dayHours = (d.endMs - d.startMs) / HOUR_MS;
+      return {
+        stationId: st.id,
+        timeZone: zone,
+        day: d.day,
+        dayStartMs: d.startMs,
+        dayEndMs: d.endMs,
+        dayHours,
+        dstChange: dayHours !== 24,
+        partial: d.startMs < plan.span.startMs || d.endMs > plan.span.endMs,
+        volumeBits: 0,
+        contactCount: 0,
+        contactTimeS: 0,
+      };
+    });
+    for (const c of byStation.get(st.id) ?? []) {
+      const ia = dayIndex(days, c.aosMs);
+      if (ia < 0) throw new Error(`daily totals: AOS of ${c.spacecraftId} over ${st.id} is outside the span's days`);
+      stationRows[ia]!.contactCount++;
+      for (let i = ia; i < days.length; i++) {
+        const d = days[i]!;
+        if (d.startMs > c.losMs) break;
+        const overlapMs = Math.min(c.losMs, d.endMs) - Math.max(c.aosMs, d.startMs);
+        if (overlapMs > 0) stationRows[i]!.contactTimeS += overlapMs / 1000;
+      }
+      const link = c.link;
+      if (!link) continue;
+      let hint = ia;
+      link.volumeBinsBits.forEach((bits, k) => {
+        if (bits === 0) return;
+        const binMs = link.binStartMs + k * VOLUME_BIN_MS;
+        const d = days[hint];
+        if (!d || binMs < d.startMs || binMs >= d.endMs) hint = dayIndex(days, binMs);
+        if (hint < 0) throw new Error(`daily totals: a volume bin of ${c.spacecraftId} over ${st.id} is outside the span's days`);
+        stationRows[hint]!.volumeBits += bits;
+      });
+    }
+    rows.push(...stationRows);
+  }
+  return rows;
+}
+
+/** Totals per spacecraft over the whole span, in plan order. */
+export function spacecraftTotals(plan: PlanResult): SpacecraftTotal[] {
+  const totals = new Map<string, SpacecraftTotal>();
+  for (const sc of plan.spacecraft) totals.set(sc.id, { spacecraftId: sc.id, contactCount: 0, contactTimeS: 0, volumeBits: 0 });
+  for (const c of plan.contacts) {
+    const t = totals.get(c.spacecraftId);
+    if (!t) continue;
+    t.contactCount++;
+    t.contactTimeS += c.durationS;
+    t.volumeBits += c.link?.volumeBits ?? 0;
+  }
+  return [...totals.values()];
+}

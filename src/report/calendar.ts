@@ -1,0 +1,146 @@
+/**
+ * Contact windows as an iCalendar file (IETF RFC 5545, "Internet Calendaring
+ * and Scheduling Core Object Specification", September 2009), written here
+ * rather than through a library so that every byte is ours to fix: no clock
+ * in DTSTAMP, stable UIDs, the same inputs give byte-identical files.
+ *
+ * What the writer follows:
+ * - §3.1 content lines end in CRLF and are folded to at most 75 octets (a
+ *   continuation line starts with one space); folding never splits a UTF-8
+ *   character.
+ * - §3.3.11 TEXT values escape backslash, semicolon, comma and newline.
+ * - §3.3.5 DATE-TIME in UTC form (19980119T070000Z). It has no fractional
+ *   seconds: DTSTART is AOS rounded down and DTEND is LOS rounded up to the
+ *   second, so the event always covers the window.
+ * - §3.6.1 each VEVENT carries UID and DTSTAMP. DTSTAMP is the start of the
+ *   planned span (not the clock). UID = station, spacecraft and AOS second
+ *   ("FRV-KESTREL-1-20260305T074331Z@passbudget"), with "-2", "-3" added in
+ *   the rare case of two windows of a pair starting in the same second.
+ * - §3.7 the calendar carries PRODID and VERSION:2.0; NAME (RFC 7986 §5.1)
+ *   and X-WR-CALNAME name it for calendar programs.
+ */
+import type { Contact, PlanResult } from '../plan/types.js';
+import { isoUtc, formatDuration } from '../time/format.js';
+import { formatBits } from './table.js';
+
+const CRLF = '\r\n';
+const MAX_LINE_OCTETS = 75;
+export const PRODID = '-//passbudget//contact plan//EN';
+
+/** RFC 5545 §3.3.11 TEXT escaping. */
+export function escapeText(text: string): string {
+  return text.replace(/\\/g, '\\\\').replace(/;/g, '\\;').replace(/,/g, '\\,').replace(/\r\n|\r|\n/g, '\\n');
+}
+
+function utf8Octets(codePoint: number): number {
+  if (codePoint < 0x80) return 1;
+  if (codePoint < 0x800) return 2;
+  if (codePoint < 0x10000) return 3;
+  return 4;
+}
+
+/** RFC 5545 §3.1 folding: lines of at most 75 octets, continuations start with a space. */
+export function foldLine(line: string): string {
+  const pieces: string[] = [];
+  let current = '';
+  let octets = 0;
+  let limit = MAX_LINE_OCTETS;
+  for (const ch of line) {
+    const n = utf8Octets(ch.codePointAt(0) ?? 0);
+    if (octets + n > limit) {
+      pieces.push(current);
+      current = '';
+      octets = 0;
+      limit = MAX_LINE_OCTETS - 1; // the leading space counts
+    }
+    current += ch;
+    octets += n;
+  }
+  pieces.push(current);
+  return pieces.join(`${CRLF} `);
+}
+
+/** RFC 5545 §3.3.5 UTC DATE-TIME, whole seconds (`round`: how to drop the fraction). */
+export function icalUtc(tMs: number, round: 'floor' | 'ceil'): string {
+  const s = round === 'floor' ? Math.floor(tMs / 1000) : Math.ceil(tMs / 1000);
+  return new Date(s * 1000).toISOString().slice(0, 19).replace(/[-:]/g, '') + 'Z';
+}
+
+const uidPart = (s: string) => s.replace(/[^A-Za-z0-9._-]/g, '_');
+
+/** Stable UIDs for every contact of the plan, in plan order (Map keyed by the contact object). */
+export function contactUids(plan: PlanResult): Map<Contact, string> {
+  const uids = new Map<Contact, string>();
+  const used = new Set<string>();
+  for (const c of plan.contacts) {
+    const base = `${uidPart(c.stationId)}-${uidPart(c.spacecraftId)}-${icalUtc(c.aosMs, 'floor')}`;
+    let uid = `${base}@passbudget`;
+    for (let k = 2; used.has(uid); k++) uid = `${base}-${k}@passbudget`;
+    used.add(uid);
+    uids.set(c, uid);
+  }
+  return uids;
+}
+
+function eventLines(plan: PlanResult, c: Contact, uid: string): string[] {
+  const sc = plan.spacecraft.find((s) => s.id === c.spacecraftId);
+  const st = plan.stations.find((s) => s.id === c.stationId);
+  const scName = sc?.name ?? c.spacecraftId;
+  const stName = st?.name ?? c.stationId;
+  const desc = [
+    `${scName} over ${stName} (${c.stationId}).`,
+    `AOS ${isoUtc(c.aosMs, 1)}${c.aosClipped ? ' (window cut by the start of the span)' : ''}`,
+    `LOS ${isoUtc(c.losMs, 1)}${c.losClipped ? ' (window cut by the end of the span)' : ''}`,
+    `Duration ${formatDuration(c.durationS)}`,
+    `Max elevation ${c.maxElevationDeg.toFixed(1)} deg at ${isoUtc(c.tcaMs, 0)}`,
+    `Azimuth ${c.aosAzimuthDeg.toFixed(0)} deg at AOS, ${c.losAzimuthDeg.toFixed(0)} deg at LOS`,
+  ];
+  if (c.link) {
+    desc.push(
+      `Expected volume ${formatBits(c.link.volumeBits)} (${c.link.volumeBits} bit) on ${c.link.radioId}`,
+      `Worst margin ${c.link.worstMarginDb.toFixed(1)} dB at ${c.link.worstMarginElevationDeg.toFixed(1)} deg elevation`,
+    );
+  }
+  return [
+    'BEGIN:VEVENT',
+    `UID:${uid}`,
+    `DTSTAMP:${icalUtc(plan.span.startMs, 'floor')}`,
+    `DTSTART:${icalUtc(c.aosMs, 'floor')}`,
+    `DTEND:${icalUtc(c.losMs, 'ceil')}`,
+    `SUMMARY:${escapeText(`${c.spacecraftId} over ${c.stationId}${c.link ? ` (${formatBits(c.link.volumeBits)})` : ''}`)}`,
+    `LOCATION:${escapeText(`${stName} (${c.stationId})`)}`,
+    `DESCRIPTION:${escapeText(desc.join('\n'))}`,
+    'TRANSP:OPAQUE',
+    'END:VEVENT',
+  ];
+}
+
+/** One calendar of the given contacts (ordered by AOS, then station, then spacecraft as in the plan). */
+export function renderCalendar(plan: PlanResult, contacts: readonly Contact[], name: string, uids = contactUids(plan)): string {
+  const order = new Map(plan.contacts.map((c, i) => [c, i]));
+  const sorted = [...contacts].sort((a, b) => a.aosMs - b.aosMs || (order.get(a) ?? 0) - (order.get(b) ?? 0));
+  const lines = ['BEGIN:VCALENDAR', 'VERSION:2.0', `PRODID:${PRODID}`, 'CALSCALE:GREGORIAN', 'METHOD:PUBLISH'];
+  lines.push(`NAME:${escapeText(name)}`, `X-WR-CALNAME:${escapeText(name)}`);
+  for (const c of sorted) {
+    const uid = uids.get(c);
+    if (uid === undefined) throw new Error('renderCalendar: contact is not part of the plan');
+    lines.push(...eventLines(plan, c, uid));
+  }
+  lines.push('END:VCALENDAR');
+  return lines.map(foldLine).join(CRLF) + CRLF;
+}
+
+/** File-name-safe form of a station id. */
+export const stationFileName = (stationId: string) => `${uidPart(stationId)}.ics`;
+
+/** The network calendar and one per station: paths relative to the output folder. */
+export function renderCalendars(plan: PlanResult): { name: string; content: string }[] {
+  const uids = contactUids(plan);
+  const span = `${isoUtc(plan.span.startMs, 0)} .. ${isoUtc(plan.span.endMs, 0)}`;
+  const files = [{ name: 'contacts.ics', content: renderCalendar(plan, plan.contacts, `Contacts, all stations, ${span}`, uids) }];
+  for (const st of plan.stations) {
+    const mine = plan.contacts.filter((c) => c.stationId === st.id);
+    files.push({ name: `calendar/${stationFileName(st.id)}`, content: renderCalendar(plan, mine, `Contacts at ${st.name} (${st.id}), ${span}`, uids) });
+  }
+  return files;
+}

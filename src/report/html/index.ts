@@ -1,0 +1,122 @@
+/**
+ * The plan as one self-contained HTML page (out/report.html): inline CSS and
+ * SVG drawn here, no scripts, fonts or files from elsewhere, so it opens
+ * offline. Sections: header with the span and totals; contact timeline per
+ * station; daily volume per station; elevation and rate of chosen contacts;
+ * margin checks; warnings. Pure: returns the page as a string, deterministic
+ * for the same inputs (no clock).
+ */
+import type { DailyRow, DayMode, SpacecraftTotal } from '../../plan/daily.js';
+import type { ContactSeries } from '../../plan/series.js';
+import type { PlanResult } from '../../plan/types.js';
+import { isoUtc, formatDuration } from '../../time/format.js';
+import { formatBits } from '../table.js';
+import { renderDailySection } from './daily.js';
+import { esc } from './escape.js';
+import { renderMarginsSection, type MarginRow } from './margins.js';
+import { renderSeriesSection } from './series.js';
+import { stylesheet } from './style.js';
+import { renderTimeline } from './timeline.js';
+
+export type { MarginRow } from './margins.js';
+
+export interface ReportInput {
+  plan: PlanResult;
+  dayMode: DayMode;
+  daily: readonly DailyRow[];
+  spacecraftTotals: readonly SpacecraftTotal[];
+  /** Contacts charted in full (e.g. the highest-volume one per spacecraft). */
+  series: readonly ContactSeries[];
+  /** What the charted contacts are, one line (default: "highest-volume contact of <spacecraft>"). */
+  seriesCaption?: (s: ContactSeries) => string;
+  margins?: readonly MarginRow[];
+}
+
+function facts(plan: PlanResult): string {
+  const hasLink = plan.contacts.some((c) => c.link);
+  const totalBits = plan.contacts.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0);
+  const totalS = plan.contacts.reduce((s, c) => s + c.durationS, 0);
+  const items: [string, string][] = [
+    ['contacts', String(plan.contacts.length)],
+    ['contact time', formatDuration(totalS)],
+    ['volume', hasLink ? formatBits(totalBits) : '-'],
+    ['stations', String(plan.stations.length)],
+    ['spacecraft', String(plan.spacecraft.length)],
+    ['availability', `${plan.availabilityPercent} %`],
+  ];
+  return `<dl class="facts">${items.map(([k, v]) => `<div><dt>${k}</dt><dd>${esc(v)}</dd></div>`).join('')}</dl>`;
+}
+
+function spacecraftTable(plan: PlanResult, totals: readonly SpacecraftTotal[]): string {
+  const idx = new Map(plan.spacecraft.map((s, i) => [s.id, i]));
+  const name = new Map(plan.spacecraft.map((s) => [s.id, s.name]));
+  const rows = totals.map((t) => {
+    const i = (idx.get(t.spacecraftId) ?? 0) % 8;
+    return (
+      `<tr><td><span class="swatch bg-sc${i}"></span>${esc(t.spacecraftId)}</td><td class="text">${esc(name.get(t.spacecraftId) ?? '')}</td>` +
+      `<td>${t.contactCount}</td><td>${formatDuration(t.contactTimeS)}</td><td data-volume-bits="${t.volumeBits}">${formatBits(t.volumeBits)}</td></tr>`
+    );
+  });
+  return [
+    '<table class="spacecraft"><thead><tr><th>spacecraft</th><th class="text">name</th><th>contacts</th><th>contact time</th><th>volume</th></tr></thead>',
+    `<tbody>${rows.join('\n')}</tbody></table>`,
+  ].join('\n');
+}
+
+function legend(plan: PlanResult): string {
+  return plan.spacecraft.map((s, i) => `<span class="swatch bg-sc${i % 8}"></span>${esc(s.id)}`).join(' &nbsp; ');
+}
+
+export function renderReportHtml(input: ReportInput): string {
+  const { plan } = input;
+  const span = `${isoUtc(plan.span.startMs, 0)} to ${isoUtc(plan.span.endMs, 0)}`;
+  const caption = input.seriesCaption ?? ((s: ContactSeries) => `highest-volume contact of ${s.spacecraftId}`);
+  const dayNote =
+    input.dayMode.kind === 'utc'
+      ? 'UTC days.'
+      : "Each station's own local days (23- or 25-hour days at daylight-saving changes are marked).";
+  const warnings = plan.warnings.length
+    ? `<section id="warnings"><h2>Warnings</h2><ul class="warnings">${plan.warnings.map((w) => `<li>${esc(w)}</li>`).join('')}</ul></section>`
+    : '';
+  return `<!DOCTYPE html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<title>Contact plan ${esc(span)}</title>
+<style>${stylesheet()}</style>
+</head>
+<body>
+<main>
+<header class="top">
+<p class="kicker">passbudget · contact plan</p>
+<h1>${esc(span)}</h1>
+<p class="sub">Link at ${plan.availabilityPercent} % availability, sampled every ${plan.linkStepS} s inside contacts. All times UTC.</p>
+${facts(plan)}
+</header>
+<section id="spacecraft"><h2>Spacecraft</h2>
+<p class="note">Totals over the span; colours mark each spacecraft in the timeline and charts.</p>
+${spacecraftTable(plan, input.spacecraftTotals)}
+</section>
+<section id="timeline"><h2>Contacts per station</h2>
+<p class="note">One lane per spacecraft in each station's block, top to bottom: ${legend(plan)}. Hover a bar for its times and volume.</p>
+${renderTimeline(plan)}
+</section>
+<section id="daily"><h2>Daily volume per station</h2>
+<p class="note">${dayNote} A day's volume is the data received in it; contacts (in brackets) are counted on the day of their AOS. "~": day only partly inside the span.</p>
+${renderDailySection(plan, input.daily, input.dayMode)}
+</section>
+<section id="contacts"><h2>Elevation and data rate</h2>
+<p class="note">The highest-volume contact of each spacecraft, re-sampled for the chart; the rate is zero before data start (dashed line) and wherever the link does not close.</p>
+${renderSeriesSection(plan, input.series, caption)}
+</section>
+<section id="margins"><h2>Margin checks</h2>
+${renderMarginsSection(input.margins)}
+</section>
+${warnings}
+<footer>Made by passbudget from the scenario files; the same inputs give the same page.</footer>
+</main>
+</body>
+</html>
+`;
+}

@@ -1,0 +1,34 @@
+/**
+ * The margin check table: one row per station and spacecraft, from the
+ * margin stage when it ran; otherwise a short note that no check was made.
+ */
+import { esc } from './escape.js';
+
+export interface MarginRow {
+  station: string;
+  spacecraft: string;
+  /** Margin at the lowest elevation the mask allows, dB. */
+  maskMarginDb: number;
+  /** Lowest margin seen over the plan's contacts, dB. */
+  worstSeenMarginDb: number;
+  pass: boolean;
+}
+
+const db = (v: number) => (Number.isFinite(v) ? v.toFixed(1) : '-');
+
+export function renderMarginsSection(margins: readonly MarginRow[] | undefined): string {
+  if (!margins || margins.length === 0) {
+    return '<p class="note">No margin check was run with this plan.</p>';
+  }
+  const failed = margins.filter((m) => !m.pass).length;
+  const rows = margins.map(
+    (m) =>
+      `<tr><td>${esc(m.station)}</td><td>${esc(m.spacecraft)}</td><td>${db(m.maskMarginDb)}</td><td>${db(m.worstSeenMarginDb)}</td>` +
+      `<td class="${m.pass ? 'pass' : 'fail'}">${m.pass ? 'pass' : 'FAIL'}</td></tr>`,
+  );
+  return [
+    `<p class="note">${margins.length} pair${margins.length === 1 ? '' : 's'} checked, ${failed} failed.</p>`,
+    '<table class="margins"><thead><tr><th>station</th><th>spacecraft</th><th>margin at mask, dB</th><th>worst seen, dB</th><th>result</th></tr></thead>',
+    `<tbody>${rows.join('\n')}</tbody></table>`,
+  ].join('\n');
+}
