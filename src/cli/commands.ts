@@ -4,6 +4,7 @@ import type { CliIo } from './io.js';
 import { registerCheck } from './check.js';
 import { registerPlan } from './plan.js';
 import { registerBudget } from './budget.js';
+import { registerSize } from './size.js';
 
 export type SetExit = (code: number) => void;
 
@@ -11,4 +12,5 @@ export function registerCommands(program: Command, io: CliIo, setExit: SetExit):
   registerPlan(program, io, setExit);
   registerCheck(program, io, setExit);
   registerBudget(program, io, setExit);
+  registerSize(program, io, setExit);
 }

@@ -9,6 +9,10 @@ import { highestVolumeContacts, seriesForContacts } from '../plan/series.js';
 import { dailyRecord, renderDailyCsv, renderDailyTable, spacecraftTotalRecord } from '../report/daily.js';
 import { renderCalendars } from '../report/calendar.js';
 import { renderReportHtml } from '../report/html/index.js';
+import { scheduleContacts, scheduledPlan } from '../plan/schedule.js';
+import { simulateRecorders } from '../plan/recorder.js';
+import { renderScheduleCsv, renderScheduleTable, scheduleJson } from '../report/schedule.js';
+import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable } from '../report/recorder.js';
 import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
@@ -18,25 +22,43 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
     program.command('plan').description('contact windows of every spacecraft over every station, with the data volume of each contact'),
   )
     .option('--local-days', "daily totals over each station's local days (its IANA zone) instead of UTC days")
-    .action((raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean }) => {
+    .option('--schedule', 'deconflict antennas (priority x volume), show only the windows taken, simulate the onboard recorders')
+    .option('--one-station-at-a-time', 'with --schedule: a spacecraft downlinks to one station at a time')
+    .action((raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean }) => {
       const opts = readCommonOptions(raw);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
       const scenario = loadScenario(opts.files);
       const span = spanFor(opts, scenario, io.nowMs());
-      const plan = runPlan(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
+      const unscheduled = runPlan(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
+      const oneStation = Boolean(raw.oneStationAtATime);
+      const schedule = raw.schedule || oneStation ? scheduleContacts(unscheduled, scenario.stations, scenario.spacecraft, { oneStationAtATime: oneStation }) : undefined;
+      const recorders = schedule ? simulateRecorders(unscheduled, scenario.spacecraft, schedule) : undefined;
+      const plan = schedule ? scheduledPlan(unscheduled, schedule) : unscheduled;
       const daily = dailyTotals(plan, dayMode);
       const totals = spacecraftTotals(plan);
-      const json = renderPlanJson(plan, { daily: daily.map(dailyRecord), spacecraft_totals: totals.map(spacecraftTotalRecord) });
+      const json = renderPlanJson(plan, {
+        daily: daily.map(dailyRecord),
+        spacecraft_totals: totals.map(spacecraftTotalRecord),
+        ...(schedule && recorders ? { schedule: scheduleJson(unscheduled, schedule), recorder: recorderJson(recorders) } : {}),
+      });
       const csv = renderPlanCsv(plan);
       if (opts.format === 'json') io.out(json);
       else if (opts.format === 'csv') io.out(csv);
       else io.out(renderPlanTable(plan, opts.zone) + '\n' + renderDailyTable(daily, dayMode, totals));
+      if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone) + '\n' + renderRecorderTable(recorders));
       for (const w of plan.warnings) io.err(`warning: ${w}\n`);
       if (opts.write) {
         const written = writeOutputs(opts.outDir, [
           { name: 'plan.json', content: json },
           { name: 'contacts.csv', content: csv },
           { name: 'daily.csv', content: renderDailyCsv(daily) },
+          ...(schedule && recorders
+            ? [
+                { name: 'schedule.csv', content: renderScheduleCsv(unscheduled, schedule) },
+                { name: 'recorder.csv', content: renderRecorderCsv(recorders) },
+                { name: 'recorder.svg', content: renderRecorderSvg(recorders) },
+              ]
+            : []),
           ...renderCalendars(plan),
           {
             name: 'report.html',

@@ -119,6 +119,7 @@ function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, proble
             capacityBits: entry.recorder.capacityGbit * 1e9,
             generationBps: entry.recorder.generationMbps * 1e6,
             initialFillBits: (entry.recorder.initialFillGbit ?? 0) * 1e9,
+            ...(entry.recorder.duty ? { duty: { onS: entry.recorder.duty.onS, offS: entry.recorder.duty.offS } } : {}),
           },
         }
       : {}),

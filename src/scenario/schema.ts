@@ -119,6 +119,8 @@ export const spacecraftSchema = z
         capacityGbit: positive(),
         generationMbps: nonNegative(),
         initialFillGbit: nonNegative().optional(),
+        /** Payload on/off cycle: generates for onS, then idles offS, from the window start. */
+        duty: z.object({ onS: positive(), offS: nonNegative() }).strict().optional(),
       })
       .strict()
       .optional(),

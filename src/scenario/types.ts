@@ -109,7 +109,13 @@ export interface Spacecraft {
   orbit: OrbitSource;
   radios: Radio[];
   /** Onboard recorder (network planning). */
-  recorder?: { capacityBits: number; generationBps: number; initialFillBits: number };
+  recorder?: {
+    capacityBits: number;
+    generationBps: number;
+    initialFillBits: number;
+    /** Generation on for onS, then off for offS, repeating from the span start; absent: always on. */
+    duty?: { onS: number; offS: number };
+  };
 }
 
 /** Horizon mask: a constant elevation, or a profile of (azimuth, elevation) points. */

@@ -1,0 +1,109 @@
+/**
+ * `passbudget size`: the inverse question (src/plan/sizing.ts for the methods).
+ *  - week mode: --spacecraft-id ID --target-gbit-per-day X [--solve power|dish|symbol-rate]
+ *    the smallest power / dish / symbol rate at which the span delivers X Gbit per day;
+ *  - one-geometry mode: --spacecraft-id ID --station-id ID --elevation DEG (or --range-km)
+ *    --target-rate-bps R: the power at which that one budget just carries R.
+ * Exit 0 with an answer, 1 when the target cannot be reached, 2 on bad input.
+ * Writes <out>/sizing.json unless --no-write.
+ */
+import { Option, type Command } from 'commander';
+import { UsageError } from '../errors.js';
+import { loadScenario } from '../scenario/load.js';
+import { DEFAULT_SIZING_LINK_STEP_S, prepareSizingContext, sizeForWeek, sizePowerAtGeometry, type SolveFor, type VolumeBasis } from '../plan/sizing.js';
+import { pointSizingJson, renderPointSizingText, renderWeekSizingText, weekSizingJson } from '../report/sizing.js';
+import { writeOutputs } from '../report/write.js';
+import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
+import type { CliIo } from './io.js';
+import type { SetExit } from './commands.js';
+
+function num(flag: string, text: string | undefined, min: number, max: number): number | undefined {
+  if (text === undefined) return undefined;
+  const v = Number(text);
+  if (!Number.isFinite(v) || v < min || v > max) throw new UsageError(`${flag}: "${text}" must be a number in ${min}..${max}`);
+  return v;
+}
+
+interface SizeRaw {
+  spacecraftId: string;
+  stationId?: string;
+  targetGbitPerDay?: string;
+  solve: SolveFor;
+  basis: VolumeBasis | 'auto';
+  oneStationAtATime?: boolean;
+  availability?: string;
+  elevation?: string;
+  rangeKm?: string;
+  targetRateBps?: string;
+}
+
+export function registerSize(program: Command, io: CliIo, setExit: SetExit): void {
+  addCommonOptions(
+    program
+      .command('size')
+      .description('inverse: the transmit power, dish or symbol rate that reaches a daily volume (week) or a rate (one geometry)'),
+  )
+    .requiredOption('--spacecraft-id <id>', 'spacecraft whose link is sized')
+    .option('--target-gbit-per-day <x>', 'week mode: daily volume to reach, Gbit per day (mean over the span)')
+    .addOption(new Option('--solve <what>', 'week mode: what to size').choices(['power', 'dish', 'symbol-rate']).default('power'))
+    .option('--station-id <id>', 'dish: the station whose dish is sized (default: every station with a receive chain); one geometry: the station')
+    .addOption(
+      new Option('--basis <basis>', 'week mode: count volumes after the antenna schedule, or every window (auto: schedule when antennas conflict)')
+        .choices(['auto', 'scheduled', 'unscheduled'])
+        .default('auto'),
+    )
+    .option('--one-station-at-a-time', 'scheduled basis: a spacecraft downlinks to one station at a time')
+    .option('--availability <percent>', "availability the budget is computed for (default: the scenario's)")
+    .option('--elevation <deg>', 'one-geometry mode: elevation, deg')
+    .option('--range-km <km>', 'one-geometry mode: slant range, km')
+    .option('--target-rate-bps <R>', 'one-geometry mode: information rate to carry, bit/s')
+    .action((raw: Parameters<typeof readCommonOptions>[0] & SizeRaw) => {
+      const opts = readCommonOptions(raw);
+      if (opts.format === 'csv') throw new UsageError('--format: size prints table or json');
+      const scenario = loadScenario(opts.files);
+      const availability = num('--availability', raw.availability, 90, 99.999);
+      if (availability !== undefined) scenario.link = { ...scenario.link, availabilityPercent: availability };
+      const rate = num('--target-rate-bps', raw.targetRateBps, 1e-3, 1e12);
+      const target = num('--target-gbit-per-day', raw.targetGbitPerDay, 1e-9, 1e9);
+      let text: string;
+      let json: string;
+      let reached: boolean;
+      if (rate !== undefined) {
+        if (raw.stationId === undefined) throw new UsageError('size: one-geometry mode (--target-rate-bps) needs --station-id');
+        const req: Parameters<typeof sizePowerAtGeometry>[1] = { spacecraftId: raw.spacecraftId, stationId: raw.stationId, targetRateBps: rate };
+        const el = num('--elevation', raw.elevation, 0, 90);
+        const range = num('--range-km', raw.rangeKm, 1, 1e10);
+        if (el !== undefined) req.elevationDeg = el;
+        if (range !== undefined) req.rangeKm = range;
+        if (raw.solve !== 'power') throw new UsageError('--solve: one-geometry mode sizes the transmit power only');
+        const res = sizePowerAtGeometry(scenario, req);
+        text = renderPointSizingText(res);
+        json = pointSizingJson(res);
+        reached = res.requiredPowerDbw !== null;
+      } else if (target !== undefined) {
+        const span = spanFor(opts, scenario, io.nowMs());
+        const ctx = prepareSizingContext(scenario, span, opts.stepS ?? DEFAULT_SIZING_LINK_STEP_S);
+        const res = sizeForWeek(ctx, {
+          spacecraftId: raw.spacecraftId,
+          targetBitsPerDay: target * 1e9,
+          solve: raw.solve,
+          ...(raw.stationId !== undefined ? { stationId: raw.stationId } : {}),
+          basis: raw.basis,
+          oneStationAtATime: Boolean(raw.oneStationAtATime),
+        });
+        for (const w of ctx.basePlan.warnings) io.err(`warning: ${w}\n`);
+        text = renderWeekSizingText(res, span);
+        json = weekSizingJson(res, span);
+        reached = res.answer !== null;
+      } else {
+        throw new UsageError('size: give --target-gbit-per-day X (week mode) or --target-rate-bps R with --elevation/--range-km (one geometry)');
+      }
+      io.out(opts.format === 'json' ? json : text);
+      if (opts.write) {
+        const written = writeOutputs(opts.outDir, [{ name: 'sizing.json', content: json }]);
+        if (opts.format === 'table') io.out(`\nwrote ${written.join(', ')}\n`);
+      }
+      // 1: the target cannot be reached (EXIT_REQUIREMENT_FAILED)
+      setExit(reached ? 0 : 1);
+    });
+}
