@@ -1,0 +1,43 @@
+/**
+ * `passbudget margin`: the worst-case elevation check per station and spacecraft
+ * (src/plan/margin.ts for the rules). Prints a table / JSON / CSV (--format), writes
+ * <out>/margin.csv and <out>/margin.json, and exits 1 when any row fails.
+ */
+import type { Command } from 'commander';
+import { loadScenario } from '../scenario/load.js';
+import { runPlan } from '../plan/run.js';
+import { marginRows } from '../plan/margin.js';
+import { renderMarginCsv, renderMarginJson, renderMarginTable, type MarginReport } from '../report/margin.js';
+import { writeOutputs } from '../report/write.js';
+import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
+import type { CliIo } from './io.js';
+import type { SetExit } from './commands.js';
+
+export function registerMargin(program: Command, io: CliIo, setExit: SetExit): void {
+  addCommonOptions(
+    program
+      .command('margin')
+      .description('worst-case elevation margin per station and spacecraft, the usable data mask, and the worst margin seen; exit 1 on a failure'),
+  ).action((raw) => {
+    const opts = readCommonOptions(raw);
+    const scenario = loadScenario(opts.files);
+    const span = spanFor(opts, scenario, io.nowMs());
+    const plan = runPlan(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
+    const report: MarginReport = { span, availabilityPercent: scenario.link.availabilityPercent, rows: marginRows(scenario, plan) };
+    const json = renderMarginJson(report);
+    const csv = renderMarginCsv(report);
+    if (opts.format === 'json') io.out(json);
+    else if (opts.format === 'csv') io.out(csv);
+    else io.out(renderMarginTable(report));
+    for (const w of plan.warnings) io.err(`warning: ${w}\n`);
+    if (opts.write) {
+      const written = writeOutputs(opts.outDir, [
+        { name: 'margin.json', content: json },
+        { name: 'margin.csv', content: csv },
+      ]);
+      if (opts.format === 'table') io.out(`\nwrote ${written.join(', ')}\n`);
+    }
+    // 1: a requirement failed (main.ts EXIT_REQUIREMENT_FAILED); 0: ok
+    setExit(report.rows.every((r) => r.pass) ? 0 : 1);
+  });
+}
