@@ -102,6 +102,8 @@ export interface WeekSizingResult {
   availabilityPercent: number;
   evaluations: number;
   searchRule: string;
+  /** Why the search stopped short of its limit (a candidate outside a model's valid range), or null. */
+  note: string | null;
 }
 
 /** Geometry and a baseline link run, computed once for all candidates. */
@@ -273,9 +275,20 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
   }
 
   const currentBitsPerDay = perDay({});
+  // A candidate outside a model's valid range (e.g. a dish whose beam is narrower than the
+  // pointing error) does not meet the target; the scan stops there and says why.
+  let note: string | null = null;
+  let outOfRange = false;
   const meets = (v: number): [boolean, number] => {
-    const bpd = perDay(make(v));
-    return [bpd >= req.targetBitsPerDay, bpd];
+    try {
+      const bpd = perDay(make(v));
+      return [bpd >= req.targetBitsPerDay, bpd];
+    } catch (err) {
+      if (!(err instanceof ModelRangeError)) throw err;
+      note = `stopped at ${v.toPrecision(6)} ${unit}: ${err.message}`;
+      outOfRange = true;
+      return [false, Number.NaN];
+    }
   };
 
   let lo: number | null = null;
@@ -348,6 +361,7 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
         if (lo === null) atLimit = true;
         break;
       }
+      if (outOfRange) break;
       lo = q;
       loBpd = b;
       if (q >= limit) break;
@@ -381,6 +395,7 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
     availabilityPercent: scenario.link.availabilityPercent,
     evaluations,
     searchRule,
+    note,
   };
 }
 

@@ -26,6 +26,7 @@ export function renderWeekSizingText(res: WeekSizingResult, span: { startMs: num
   );
   lines.push(`Volume basis: ${res.basis} (${res.basisReason})`);
   lines.push(`Search: ${res.searchRule}; ${res.evaluations} runs of the link engine`);
+  if (res.note !== null) lines.push(`Note: ${res.note}`);
   lines.push('');
   if (res.answer === null) {
     lines.push(`Not reachable: no ${what(res)} within the search limits delivers the target.`);
@@ -47,7 +48,7 @@ export function renderWeekSizingText(res: WeekSizingResult, span: { startMs: num
           ? `; power headroom ${res.headroomDb.toFixed(2)} dB`
           : res.solve === 'dish'
             ? `; gain headroom ${res.headroomDb.toFixed(2)} dB`
-            : `; ratio ${res.headroomDb.toFixed(2)} dB`;
+            : `; ${res.headroomDb.toFixed(2)} dB from the answer`;
     lines.push(`Scenario's own value: ${valueText(res, res.current)}, delivering ${formatBits(res.currentBitsPerDay)}/day${head}`);
   } else lines.push(`Scenario's own value differs between stations; at it: ${formatBits(res.currentBitsPerDay)}/day`);
   return lines.join('\n') + '\n';
@@ -77,6 +78,7 @@ export function weekSizingJson(res: WeekSizingResult, span: { startMs: number; e
     availability_percent: res.availabilityPercent,
     evaluations: res.evaluations,
     search: res.searchRule,
+    note: res.note,
   };
   return JSON.stringify(doc, null, 2) + '\n';
 }

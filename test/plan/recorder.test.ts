@@ -9,6 +9,7 @@ import { runPlan } from '../../src/plan/run.js';
 import { scheduleContacts } from '../../src/plan/schedule.js';
 import { cumulativeDrainBits, drainProfile, simulateRecorder, simulateRecorders, type RecorderTrack } from '../../src/plan/recorder.js';
 import { VOLUME_BIN_MS, type Contact } from '../../src/plan/types.js';
+import { spacecraftSchema } from '../../src/scenario/schema.js';
 
 const S = 1000;
 const HOUR = { startMs: 0, endMs: 3600 * S };
@@ -47,6 +48,16 @@ function contact(aosS: number, losS: number, bins: number[], binStartMs = Math.f
 }
 
 const balance = (t: RecorderTrack) => t.initialBits + t.generatedBits - (t.downlinkedBits + t.finalBits + t.lostBits);
+
+describe('recorder duty cycle in the spacecraft file', () => {
+  it('accepts recorder.duty {onS > 0, offS >= 0} and names the field when it is wrong', () => {
+    const base = { id: 'SC', orbit: { moon: true }, recorder: { capacityGbit: 1, generationMbps: 1 } };
+    expect(spacecraftSchema.safeParse({ ...base, recorder: { ...base.recorder, duty: { onS: 600, offS: 5400 } } }).success).toBe(true);
+    const bad = spacecraftSchema.safeParse({ ...base, recorder: { ...base.recorder, duty: { onS: 0, offS: 10 } } });
+    expect(bad.success).toBe(false);
+    expect(bad.error?.issues[0]?.path).toEqual(['recorder', 'duty', 'onS']);
+  });
+});
 
 describe('recorder solved by hand', () => {
   it('"one pass": 1 kbit/s, 1 Mbit recorder, one 10 kbit/s contact 600..900 s, one hour', () => {
