@@ -39,7 +39,7 @@ describe.skipIf(skip)('report.html in a browser', () => {
   beforeAll(async () => {
     outDir = mkdtempSync(join(tmpdir(), 'pb-report-'));
     let err = '';
-    const code = await run(['plan', '--days', '2', '--step', '10s', '--out', outDir, '--format', 'json'], {
+    const code = await run(['plan', '--days', '1', '--step', '10s', '--out', outDir, '--format', 'json'], {
       out: () => {},
       err: (t) => (err += t),
       isTty: false,

@@ -37,7 +37,8 @@ function chart(s: ContactSeries, hueClass: string, idBase: string): string {
   const [rUnit, rUnitName] = maxRateBps >= 1e6 ? [1e6, 'Mbit/s'] : maxRateBps >= 1e3 ? [1e3, 'kbit/s'] : [1, 'bit/s'];
   const maxRate = maxRateBps / rUnit;
   const rStep = niceStep(maxRate, 3);
-  const rTop = maxRate > 0 ? Math.ceil(maxRate / rStep) * rStep : 1;
+  // headroom: a flat top (fixed-rate codes) should not touch the panel's upper edge
+  const rTop = maxRate > 0 ? Math.ceil((maxRate * 1.08) / rStep) * rStep : 1;
   const rBase = TOP + PANEL_H + GAP + PANEL_H;
   const yR = (bps: number) => rBase - (bps / rUnit / rTop) * PANEL_H;
   const out: string[] = [];
@@ -55,8 +56,6 @@ function chart(s: ContactSeries, hueClass: string, idBase: string): string {
     out.push(`<line class="grid" x1="${LEFT}" y1="${px(yy)}" x2="${W - RIGHT}" y2="${px(yy)}"/>`);
     out.push(`<text x="${LEFT - 5}" y="${px(yy + 3.5)}" text-anchor="end">${Number(v.toFixed(3))}</text>`);
   }
-  out.push(`<text class="lbl" x="${LEFT + 4}" y="${TOP - 3}">elevation, deg</text>`);
-  out.push(`<text class="lbl" x="${LEFT + 4}" y="${TOP + PANEL_H + GAP - 3}">data rate, ${rUnitName}</text>`);
   // time ticks
   const stepMs = timeStepMs(t1 - t0, 6);
   const long = t1 - t0 > 86_400_000;
@@ -64,7 +63,8 @@ function chart(s: ContactSeries, hueClass: string, idBase: string): string {
     const xx = px(x(t));
     out.push(`<line class="grid" x1="${xx}" y1="${TOP}" x2="${xx}" y2="${rBase}"/>`);
     const label = long ? (t % 86_400_000 === 0 ? dayLabelUtc(t) : hhmmUtc(t)) : hhmmUtc(t);
-    out.push(`<text x="${xx}" y="${rBase + 14}" text-anchor="middle">${label}</text>`);
+    // a label centred on the right edge would be cut off; the gridline stays
+    if (x(t) <= W - RIGHT - 4 * label.length) out.push(`<text x="${xx}" y="${rBase + 14}" text-anchor="middle">${label}</text>`);
   }
   out.push(`<text x="${W - RIGHT}" y="${H - 3}" text-anchor="end">UTC</text>`);
   // data start marker
@@ -81,6 +81,8 @@ function chart(s: ContactSeries, hueClass: string, idBase: string): string {
   }
   out.push(`<line class="axis" x1="${LEFT}" y1="${px(yEl(0))}" x2="${W - RIGHT}" y2="${px(yEl(0))}"/>`);
   out.push(`<line class="axis" x1="${LEFT}" y1="${px(rBase)}" x2="${W - RIGHT}" y2="${px(rBase)}"/>`);
+  out.push(`<text class="lbl" x="${LEFT + 4}" y="${TOP - 3}">elevation, deg</text>`);
+  out.push(`<text class="lbl" x="${LEFT + 4}" y="${TOP + PANEL_H + GAP - 3}">data rate, ${rUnitName}</text>`);
   out.push('</svg>');
   return out.join('\n');
 }
