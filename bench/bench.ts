@@ -7,6 +7,8 @@
  *
  * Run: npm run bench. Exported pieces let later figures (demo week, link engine) be added.
  */
+import { resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { findPassesBruteForce } from '../src/geometry/bruteforce.js';
 import { makeSite } from '../src/geometry/earth.js';
 import { findPasses } from '../src/geometry/passes.js';
@@ -151,8 +153,12 @@ export function geometryBenchmark(spacecraft = 200, stations = 20, days = 7, bru
   if (!cmp.identical) process.exitCode = 1;
 }
 
-function main(): void {
+async function main(): Promise<void> {
+  const { demoBenchmark, linkBenchmark } = await import('./link-bench.js');
+  demoBenchmark();
   geometryBenchmark();
+  linkBenchmark();
 }
 
-main();
+// Run only when executed directly (link-bench.ts imports the helpers above).
+if (process.argv[1] !== undefined && fileURLToPath(import.meta.url) === resolve(process.argv[1])) void main();

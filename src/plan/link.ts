@@ -14,6 +14,7 @@
  * lowest over the samples of the whole contact (AOS..LOS).
  */
 import { lookFrom, newLook } from '../geometry/topocentric.js';
+import { StateInterpolator } from '../geometry/interpolate.js';
 import type { Look, Site, Target } from '../geometry/types.js';
 import { buildAtmosphereTable, rainModelled, type AtmosphereStationInput } from '../link/atmosphere/index.js';
 import type { AtmosphereTable } from '../link/atmosphere/types.js';
@@ -27,7 +28,8 @@ import { VOLUME_BIN_MS, type Contact, type ContactLink } from './types.js';
 
 /** Frequency above which a missing rain climate is worth a warning, Hz. */
 export const RAIN_WARNING_ABOVE_HZ = 3e9;
-export const DEFAULT_LINK_STEP_S = 1;
+/** Link sampling step inside contacts, s: volumes agree with a 0.1 s sum to 0.3 % per contact (demo day 1). */
+export const DEFAULT_LINK_STEP_S = 10;
 
 export interface LinkSetup {
   /** PreparedLink by `${spacecraftId}|${stationId}` for the data radio. */
@@ -76,15 +78,31 @@ export function lowestMaskDeg(station: Station): number {
 }
 
 /** Builds the prepared budget of one radio at one station (atmosphere tables included). */
-export function prepareRadioAtStation(radio: Radio, station: Station, site: Site, settings: LinkSettings, minElevationDeg: number): PreparedLink {
+export function prepareRadioAtStation(
+  radio: Radio,
+  station: Station,
+  site: Site,
+  settings: LinkSettings,
+  minElevationDeg: number,
+  tableCache?: Map<string, AtmosphereTable>,
+): PreparedLink {
   const input = atmosphereInputFor(station, radio, settings);
-  const table: AtmosphereTable = buildAtmosphereTable(input, minElevationDeg);
+  const cached = (inp: AtmosphereStationInput, minEl: number): AtmosphereTable => {
+    const key = `${JSON.stringify(inp)}|${minEl}`;
+    let t = tableCache?.get(key);
+    if (!t) {
+      t = buildAtmosphereTable(inp, minEl);
+      tableCache?.set(key, t);
+    }
+    return t;
+  };
+  const table = cached(input, minElevationDeg);
   const opts: Parameters<typeof prepareLink>[4] = {
     stationGeocentricRadiusKm: Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]),
   };
   if (station.receiver.kind === 'gt') {
     const { rainRate001MmH: _r, rainHeightKm: _h, cloudLiquidWaterKgM2: _c, ...clear } = input;
-    opts.clearSkyAtmosphere = buildAtmosphereTable(clear, Math.min(minElevationDeg, station.receiver.atElevationDeg));
+    opts.clearSkyAtmosphere = cached(clear, Math.min(minElevationDeg, station.receiver.atElevationDeg));
   }
   return prepareLink(radio, station, settings, table, opts);
 }
@@ -93,6 +111,9 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup 
   const links = new Map<string, PreparedLink>();
   const warnings: string[] = [];
   const warnedRain = new Set<string>();
+  // The atmosphere depends on the station, frequency, polarisation and availability only:
+  // spacecraft sharing a band share its tables.
+  const tables = new Map<string, AtmosphereTable>();
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
     for (const sc of scenario.spacecraft) {
@@ -103,7 +124,7 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup 
         warnedRain.add(station.id);
         warnings.push(`${station.id}: no rain climate (rainRate001MmH, rainHeightKm); the rain term is not modelled above ${RAIN_WARNING_ABOVE_HZ / 1e9} GHz`);
       }
-      links.set(linkKey(sc.id, station.id), prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station)));
+      links.set(linkKey(sc.id, station.id), prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station), tables));
     }
   });
   return { links, warnings };
@@ -234,13 +255,11 @@ export function integrateContacts(
   for (const [scId, accs] of bySpacecraft) {
     const target = geometry.targets.get(scId);
     if (!target) continue;
+    const interp = new StateInterpolator(target, geometry.span.startMs);
     // Events in time order: each contact's AOS, its data start, grid times, its LOS.
     accs.sort((a, b) => a.contact.aosMs - b.contact.aosMs);
-    const evalAt = (acc: Accumulator, tMs: number, fresh: boolean) => {
-      if (fresh) {
-        stats.propagations++;
-        if (!target.stateEcefAt(tMs, state)) return;
-      }
+    const evalAt = (acc: Accumulator, tMs: number) => {
+      if (!interp.stateAt(tMs, state)) return;
       lookFrom(acc.site, state, look);
       evaluateLink(acc.link, look, sample);
       stats.linkSamples++;
@@ -258,15 +277,15 @@ export function integrateContacts(
       // open contacts whose AOS comes before this grid time
       while (next < accs.length && accs[next]!.contact.aosMs <= tMs) {
         const acc = accs[next++]!;
-        evalAt(acc, acc.contact.aosMs, true);
-        if (acc.dataStartMs > acc.contact.aosMs) evalAt(acc, acc.dataStartMs, true);
+        evalAt(acc, acc.contact.aosMs);
+        if (acc.dataStartMs > acc.contact.aosMs) evalAt(acc, acc.dataStartMs);
         active.push(acc);
       }
       // close contacts whose LOS comes before this grid time
       for (let i = active.length - 1; i >= 0; i--) {
         const acc = active[i]!;
         if (acc.contact.losMs < tMs) {
-          if (acc.lastMs < acc.contact.losMs) evalAt(acc, acc.contact.losMs, true);
+          if (acc.lastMs < acc.contact.losMs) evalAt(acc, acc.contact.losMs);
           finish(acc);
           active.splice(i, 1);
         }
@@ -278,8 +297,7 @@ export function integrateContacts(
         k = Math.max(k, Math.ceil((accs[next]!.contact.aosMs - t0) / stepMs) - 1);
         continue;
       }
-      stats.propagations++;
-      if (!target.stateEcefAt(tMs, state)) continue;
+      if (!interp.stateAt(tMs, state)) continue;
       for (const acc of active) {
         if (tMs <= acc.contact.aosMs || tMs >= acc.contact.losMs) continue;
         lookFrom(acc.site, state, look);
@@ -289,9 +307,10 @@ export function integrateContacts(
       }
     }
     for (const acc of active) {
-      if (acc.lastMs < acc.contact.losMs) evalAt(acc, acc.contact.losMs, true);
+      if (acc.lastMs < acc.contact.losMs) evalAt(acc, acc.contact.losMs);
       finish(acc);
     }
+    stats.propagations += interp.propagations;
   }
   return stats;
 }
