@@ -13,6 +13,7 @@ import { scheduleContacts, scheduledPlan } from '../plan/schedule.js';
 import { simulateRecorders } from '../plan/recorder.js';
 import { renderScheduleCsv, renderScheduleTable, scheduleJson } from '../report/schedule.js';
 import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable } from '../report/recorder.js';
+import { marginRows } from '../plan/margin.js';
 import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
@@ -68,6 +69,14 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
               daily,
               spacecraftTotals: totals,
               series: seriesForContacts(scenario, span, highestVolumeContacts(plan)),
+              margins: marginRows(scenario, unscheduled).map((m) => ({
+                station: m.station,
+                spacecraft: m.spacecraft,
+                maskMarginDb: m.maskMarginDb,
+                worstSeenMarginDb: m.worstSeenMarginDb ?? Number.NaN,
+                pass: m.pass,
+              })),
+              ...(recorders ? { recorderSvg: renderRecorderSvg(recorders) } : {}),
             }),
           },
         ]);

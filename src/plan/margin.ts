@@ -6,6 +6,10 @@
  *   data: max(lowest point of the horizon mask, LinkSettings.minDataElevationDeg, 0).
  *   For an azimuth profile the lowest point is used: somewhere on the horizon the
  *   spacecraft can be that low, and the check must hold there.
+ * - A target that never rises or sets over the station in the span (every contact of
+ *   the pair is cut by both span edges: a geostationary craft) never comes down to the
+ *   mask: its check elevation is the lowest elevation it actually reaches, sampled every
+ *   ALWAYS_VISIBLE_SAMPLE_S over the span (if above the mask).
  * - Worst range: the target's largest geocentric distance over the span (for an SGP4
  *   orbit its apogee as flown; for the Moon its farthest distance; for a fixed-sky
  *   craft its fixed range), found by sampling every MAX_RADIUS_SAMPLE_S and refining
@@ -34,8 +38,8 @@
  * Pure: no I/O.
  */
 import { ModelRangeError } from '../errors.js';
-import { newLook } from '../geometry/topocentric.js';
-import type { Look, Target } from '../geometry/types.js';
+import { lookFrom, newLook } from '../geometry/topocentric.js';
+import type { Look, Site, Target } from '../geometry/types.js';
 import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { LinkSettings, Scenario, Span, Station } from '../scenario/types.js';
@@ -48,6 +52,8 @@ export const MAX_RADIUS_SAMPLE_S = 60;
 /** Golden-section tolerance of the largest-distance refinement, s. */
 export const MAX_RADIUS_TOLERANCE_S = 0.01;
 export const USABLE_SCAN_STEP_DEG = 0.5;
+/** Sampling step for the lowest elevation of an always-visible target, s. */
+export const ALWAYS_VISIBLE_SAMPLE_S = 300;
 export const USABLE_TOLERANCE_DEG = 1e-4;
 /** Lowest elevation the usable-mask search goes to, deg (the geometric horizon). */
 export const USABLE_FLOOR_DEG = 0;
@@ -196,6 +202,18 @@ function modcodName(link: PreparedLink, s: LinkSample): string {
   return link.modcodTable[s.modcodIndex]?.name ?? '';
 }
 
+/** Lowest elevation of the target seen from the site over the span, deg (sampled). */
+function lowestElevationDeg(target: Target, site: Site, span: Span, look: Look): number {
+  const state = new Float64Array(6);
+  let lowest = Infinity;
+  for (let t = span.startMs; t <= span.endMs; t += ALWAYS_VISIBLE_SAMPLE_S * 1000) {
+    if (!target.stateEcefAt(t, state)) continue;
+    lookFrom(site, state, look);
+    if (look.elevationDeg < lowest) lowest = look.elevationDeg;
+  }
+  return lowest;
+}
+
 /**
  * One row per station and spacecraft with a data radio (station order, then spacecraft
  * order), for the plan's scenario and span. Pure; the HTML report may call it.
@@ -213,14 +231,19 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
     const stationRadiusKm = Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]);
-    const elevationDeg = checkElevationDeg(station, scenario.link);
+    const maskCheckDeg = checkElevationDeg(station, scenario.link);
     for (const sc of scenario.spacecraft) {
       const radio = sc.radios[0];
       const far = radii.get(sc.id);
       if (!radio || !far) continue;
+      const contacts = plan.contacts.filter((c) => c.stationId === station.id && c.spacecraftId === sc.id);
+      let elevationDeg = maskCheckDeg;
+      const target = geometry.targets.get(sc.id);
+      if (target && contacts.length > 0 && contacts.every((c) => c.aosClipped && c.losClipped)) {
+        elevationDeg = Math.max(maskCheckDeg, lowestElevationDeg(target, site, plan.span, look));
+      }
       const link = prepareRadioAtStation(radio, station, site, scenario.link, USABLE_FLOOR_DEG);
       const maskMarginDb = marginAtElevation(link, stationRadiusKm, far.radiusKm, elevationDeg, look, sample);
-      const contacts = plan.contacts.filter((c) => c.stationId === station.id && c.spacecraftId === sc.id);
       let worstSeen: number | null = null;
       for (const c of contacts) {
         if (c.link && (worstSeen === null || c.link.worstMarginDb < worstSeen)) worstSeen = c.link.worstMarginDb;

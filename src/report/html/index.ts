@@ -30,6 +30,8 @@ export interface ReportInput {
   /** What the charted contacts are, one line (default: "highest-volume contact of <spacecraft>"). */
   seriesCaption?: (s: ContactSeries) => string;
   margins?: readonly MarginRow[];
+  /** The onboard recorders' fill over time, an SVG drawn by report/recorder.ts (scheduled plans). */
+  recorderSvg?: string;
 }
 
 function facts(plan: PlanResult): string {
@@ -113,6 +115,7 @@ ${renderSeriesSection(plan, input.series, caption)}
 <section id="margins"><h2>Margin checks</h2>
 ${renderMarginsSection(input.margins)}
 </section>
+${input.recorderSvg ? `<section id="recorder"><h2>Onboard recorders</h2>\n<p class="note">Fill of each recorder over the span, draining during the scheduled contacts.</p>\n${input.recorderSvg}\n</section>` : ''}
 ${warnings}
 <footer>Made by passbudget from the scenario files; the same inputs give the same page.</footer>
 </main>
