@@ -155,6 +155,14 @@ export function geometryBenchmark(spacecraft = 200, stations = 20, days = 7, bru
 
 async function main(): Promise<void> {
   const { demoBenchmark, linkBenchmark } = await import('./link-bench.js');
+  const { benchTrace } = await import('./trace-bench.js');
+  // Trace first: peak RSS is per process, so it is measured before the big runs below.
+  const tr = await benchTrace(1);
+  console.log(
+    `trace: demo week at 1 s, ${tr.pairs} pairs, ${tr.rows} rows, ${(tr.bytes / 1e9).toFixed(2)} GB streamed in ${tr.wallS.toFixed(1)} s ` +
+      `(${(tr.rowsPerS / 1e3).toFixed(0)} k rows/s), peak RSS ${tr.peakRssMb.toFixed(0)} MB, RSS while streaming ` +
+      `${Math.min(...tr.rssSamplesMb).toFixed(0)}..${Math.max(...tr.rssSamplesMb).toFixed(0)} MB`,
+  );
   demoBenchmark();
   geometryBenchmark();
   linkBenchmark();

@@ -10,6 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { ScenarioError, ModelRangeError, UsageError } from '../errors.js';
 import { processIo, type CliIo } from './io.js';
 import { registerCommands } from './commands.js';
+import { removeOpenTemps } from '../report/write.js';
 
 export const EXIT_OK = 0;
 export const EXIT_REQUIREMENT_FAILED = 1;
@@ -63,6 +64,13 @@ function isMain(): boolean {
 }
 
 if (isMain()) {
+  // Interrupted: remove the temp files being written; no target was renamed yet.
+  for (const [signal, code] of [['SIGINT', 130], ['SIGTERM', 143]] as const) {
+    process.on(signal, () => {
+      removeOpenTemps();
+      process.exit(code);
+    });
+  }
   run(process.argv.slice(2)).then(
     (code) => {
       process.exitCode = code;

@@ -18,6 +18,18 @@ function tempBeside(path: string): string {
   return join(dirname(path), `.${path.split('/').pop() ?? 'out'}.${process.pid}.tmp`);
 }
 
+/** Temp files being written now, so an interrupted run can remove them. */
+const openTemps = new Set<string>();
+
+/**
+ * Removes every temp file still being written (the CLI calls this on SIGINT/SIGTERM):
+ * the targets were never renamed, so nothing half-written is left behind.
+ */
+export function removeOpenTemps(): void {
+  for (const t of openTemps) rmSync(t, { force: true });
+  openTemps.clear();
+}
+
 /** Writes all files atomically under `dir`; returns their final paths. */
 export function writeOutputs(dir: string, files: OutputFile[]): string[] {
   const staged: { temp: string; final: string }[] = [];
@@ -26,14 +38,19 @@ export function writeOutputs(dir: string, files: OutputFile[]): string[] {
       const final = join(dir, f.name);
       mkdirSync(dirname(final), { recursive: true });
       const temp = tempBeside(final);
+      openTemps.add(temp);
       writeFileSync(temp, f.content, 'utf8');
       staged.push({ temp, final });
     }
   } catch (err) {
     for (const s of staged) rmSync(s.temp, { force: true });
+    removeOpenTemps();
     throw err;
   }
-  for (const s of staged) renameSync(s.temp, s.final);
+  for (const s of staged) {
+    renameSync(s.temp, s.final);
+    openTemps.delete(s.temp);
+  }
   return staged.map((s) => s.final);
 }
 
@@ -50,6 +67,7 @@ export interface StreamedOutput {
 export function openStreamedOutput(path: string): StreamedOutput {
   mkdirSync(dirname(path), { recursive: true });
   const temp = tempBeside(path);
+  openTemps.add(temp);
   const stream = createWriteStream(temp, { encoding: 'utf8' });
   return {
     async write(chunk: string) {
@@ -59,11 +77,13 @@ export function openStreamedOutput(path: string): StreamedOutput {
       stream.end();
       await once(stream, 'finish');
       renameSync(temp, path);
+      openTemps.delete(temp);
       return path;
     },
     abort() {
       stream.destroy();
       rmSync(temp, { force: true });
+      openTemps.delete(temp);
     },
   };
 }
