@@ -94,7 +94,7 @@ export function demoBenchmark(): void {
   const full = timed(() => runPlan(scenario, span));
   console.log(`  geometry only: ${(geo.ms / 1000).toFixed(2)} s, ${geo.value.contacts.length} windows, ${geo.value.stats.propagations} propagations`);
   console.log(
-    `  plan with link (1 s): ${(full.ms / 1000).toFixed(2)} s, ${full.value.stats.linkSamples} link samples, ` +
+    `  plan with link (default 10 s step): ${(full.ms / 1000).toFixed(2)} s, ${full.value.stats.linkSamples} link samples, ` +
       `${full.value.stats.propagations} propagations in all`,
   );
 }

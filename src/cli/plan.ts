@@ -14,6 +14,7 @@ import { simulateRecorders } from '../plan/recorder.js';
 import { renderScheduleCsv, renderScheduleTable, scheduleJson } from '../report/schedule.js';
 import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable } from '../report/recorder.js';
 import { marginRows } from '../plan/margin.js';
+import { countHook, progressLine } from './progress.js';
 import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
@@ -30,7 +31,12 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
       const scenario = loadScenario(opts.files);
       const span = spanFor(opts, scenario, io.nowMs());
-      const unscheduled = runPlan(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
+      const progress = progressLine(io, 'plan');
+      const unscheduled = runPlan(scenario, span, {
+        ...(opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}),
+        onProgress: countHook(progress, 'stage'),
+      });
+      progress.end();
       const oneStation = Boolean(raw.oneStationAtATime);
       const schedule = raw.schedule || oneStation ? scheduleContacts(unscheduled, scenario.stations, scenario.spacecraft, { oneStationAtATime: oneStation }) : undefined;
       const recorders = schedule ? simulateRecorders(unscheduled, scenario.spacecraft, schedule) : undefined;

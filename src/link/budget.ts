@@ -236,6 +236,9 @@ export function prepareLink(
     pointingLossDb: pLossDb,
     polarizationLossDb: polLossDb,
     extraLossDb: 0,
+    // Tsys is linear in Tsky: its slope and intercept, from the same function as the printout
+    skyNoiseWeight: rx.kind === 'chain' ? systemNoiseTempK(1, 0, feedLossDb, 0, 0) : 0,
+    fixedNoiseTempK: rx.kind === 'chain' ? systemNoiseTempK(0, antennaNoiseTempK, feedLossDb, feedPhysicalTempK, receiverNoiseTempK) : 0,
     codingKind: coding.kind,
     codingName,
     implementationLossDb: radio.implementationLossDb,
@@ -293,7 +296,7 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample): void
   // Receive side.
   out.rxGainDbi = p.rxGainDbi;
   if (p.receiverKind === 'chain') {
-    const tsysK = systemNoiseTempK(a.skyNoiseTempK, p.antennaNoiseTempK, p.feedLossDb, p.feedPhysicalTempK, p.receiverNoiseTempK);
+    const tsysK = p.skyNoiseWeight * a.skyNoiseTempK + p.fixedNoiseTempK;
     out.systemNoiseTempK = tsysK;
     out.gOverTDbK = gOverTDbK(p.rxGainDbi, p.feedLossDb, tsysK);
   } else {

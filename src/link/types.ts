@@ -39,6 +39,13 @@ export interface PreparedLink {
   readonly feedLossDb: number;
   readonly feedPhysicalTempK: number;
   readonly receiverNoiseTempK: number;
+  /**
+   * Chain receiver, the same noise as noise.ts systemNoiseTempK written as
+   * Tsys = skyNoiseWeight * Tsky + fixedNoiseTempK (1/Lf, and the rest), so a sample
+   * needs no power of ten.
+   */
+  readonly skyNoiseWeight: number;
+  readonly fixedNoiseTempK: number;
   /** 'gt' receiver: stated G/T, its elevation, the reference Tsys and reference sky temperature. */
   readonly statedGOverTDbK: number;
   readonly statedAtElevationDeg: number;

@@ -69,13 +69,11 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
       warnings.push(`${sc.id}: track ends at ${isoUtc(target.failedAtMs, 0)}: ${target.failureReason ?? 'SGP4 error'}; no contacts after it`);
     }
   }
+  // order: station (file order), AOS, spacecraft (file order); keys computed once
   const order = new Map(scenario.stations.map((s, i) => [s.id, i]));
   const scOrder = new Map(scenario.spacecraft.map((s, i) => [s.id, i]));
-  contacts.sort(
-    (a, b) =>
-      (order.get(a.stationId) ?? 0) - (order.get(b.stationId) ?? 0) ||
-      a.aosMs - b.aosMs ||
-      (scOrder.get(a.spacecraftId) ?? 0) - (scOrder.get(b.spacecraftId) ?? 0),
-  );
+  const keyed = contacts.map((c) => ({ c, st: order.get(c.stationId) ?? 0, sc: scOrder.get(c.spacecraftId) ?? 0 }));
+  keyed.sort((a, b) => a.st - b.st || a.c.aosMs - b.c.aosMs || a.sc - b.sc);
+  for (let i = 0; i < keyed.length; i++) contacts[i] = keyed[i]!.c;
   return { contacts, warnings, propagations };
 }

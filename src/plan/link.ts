@@ -15,7 +15,7 @@
  */
 import { lookFrom, newLook } from '../geometry/topocentric.js';
 import { StateInterpolator } from '../geometry/interpolate.js';
-import type { Look, Site, Target } from '../geometry/types.js';
+import type { Look, Site } from '../geometry/types.js';
 import { buildAtmosphereTable, rainModelled, type AtmosphereStationInput } from '../link/atmosphere/index.js';
 import type { AtmosphereTable } from '../link/atmosphere/types.js';
 import { prepareLink, evaluateLink } from '../link/budget.js';

@@ -39,6 +39,7 @@
  */
 import { ModelRangeError } from '../errors.js';
 import { lookFrom, newLook } from '../geometry/topocentric.js';
+import { slantRangeKm } from '../geometry/slant.js';
 import type { Look, Site, Target } from '../geometry/types.js';
 import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
@@ -91,13 +92,9 @@ export interface MarginOptions {
 
 /** Slant range (km) at elevation e of a target at geocentric distance r from a station at R. */
 export function slantRangeAtElevationKm(stationRadiusKm: number, targetRadiusKm: number, elevationDeg: number): number {
-  if (!(targetRadiusKm >= stationRadiusKm)) {
-    throw new ModelRangeError('plan/margin slant range', 'targetRadiusKm', targetRadiusKm, `>= the station's geocentric distance ${stationRadiusKm} km`);
-  }
   if (!(elevationDeg >= -90 && elevationDeg <= 90)) throw new ModelRangeError('plan/margin slant range', 'elevationDeg', elevationDeg, '-90..90');
-  const e = elevationDeg * DEG_TO_RAD;
-  const c = stationRadiusKm * Math.cos(e);
-  return Math.sqrt(targetRadiusKm * targetRadiusKm - c * c) - stationRadiusKm * Math.sin(e);
+  if (targetRadiusKm === stationRadiusKm) return elevationDeg >= 0 ? 0 : 2 * stationRadiusKm * Math.sin(-elevationDeg * DEG_TO_RAD);
+  return slantRangeKm(stationRadiusKm, targetRadiusKm, elevationDeg);
 }
 
 /**

@@ -13,11 +13,16 @@ export interface PlanOptions {
   /** Skip the link engine (geometry only). */
   geometryOnly?: boolean;
   search?: SearchOptions;
+  /** Progress of the run: (done, total, what). Called between stages, never per sample. */
+  onProgress?: (done: number, total: number, label: string) => void;
 }
 
 export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}): PlanResult {
   const geometry = prepareGeometry(scenario, span);
+  const total = opts.geometryOnly ? 1 : 2;
+  opts.onProgress?.(0, total, 'contact search');
   const found = findContacts(scenario, geometry, span, opts.search ?? DEFAULT_SEARCH);
+  opts.onProgress?.(1, total, opts.geometryOnly ? 'done' : 'link budgets');
   const warnings = [...found.warnings];
   let linkSamples = 0;
   let propagations = found.propagations;
@@ -28,15 +33,28 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}):
     const stats = integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);
     linkSamples = stats.linkSamples;
     propagations += stats.propagations;
+    opts.onProgress?.(2, total, 'done');
   }
+  return planResult(scenario, span, linkStepS, found.contacts, warnings, { propagations, linkSamples });
+}
+
+/** A PlanResult from its parts (shared with sizing, which re-runs only the link stage). */
+export function planResult(
+  scenario: Scenario,
+  span: Span,
+  linkStepS: number,
+  contacts: PlanResult['contacts'],
+  warnings: string[],
+  stats: PlanResult['stats'],
+): PlanResult {
   return {
     span,
     linkStepS,
     availabilityPercent: scenario.link.availabilityPercent,
     spacecraft: scenario.spacecraft.map((s) => ({ id: s.id, name: s.name, priority: s.priority })),
     stations: scenario.stations.map((s) => ({ id: s.id, name: s.name, timeZone: s.timeZone })),
-    contacts: found.contacts,
+    contacts,
     warnings,
-    stats: { propagations, linkSamples },
+    stats,
   };
 }

@@ -15,7 +15,7 @@ import type { Look } from '../geometry/types.js';
 import { budgetTerms } from '../link/budget.js';
 import type { AtmosphereResult, AtmosphereTable } from '../link/atmosphere/types.js';
 import type { BudgetTerm, PreparedLink } from '../link/types.js';
-import type { Scenario, Spacecraft } from '../scenario/types.js';
+import type { Radio, Scenario, Spacecraft } from '../scenario/types.js';
 import { lowestMaskDeg, prepareRadioAtStation } from './link.js';
 
 export const MOON_MEAN_DISTANCE_KM = 384_400;
@@ -66,34 +66,52 @@ function fixedAtmosphere(totalDb: number, base: AtmosphereTable): AtmosphereTabl
   };
 }
 
-export function singleBudget(scenario: Scenario, req: SingleBudgetRequest): SingleBudget {
+export interface PointRequest {
+  spacecraftId: string;
+  stationId: string;
+  radioId?: string;
+  elevationDeg?: number;
+  rangeKm?: number;
+}
+
+/**
+ * The prepared budget and the look of one static point: the spacecraft's radio (its
+ * first unless named) at a station, at an elevation and/or range. `command` names the
+ * command in messages. Shared by `budget` and `size` (one geometry).
+ */
+export function preparePoint(scenario: Scenario, req: PointRequest, command: string): { sc: Spacecraft; radio: Radio; link: PreparedLink; look: Look; orbitRadiusKm: number } {
   const sc = scenario.spacecraft.find((s) => s.id === req.spacecraftId);
   if (!sc) throw new UsageError(`--spacecraft-id: "${req.spacecraftId}" is not in ${scenario.sources.spacecraftFile} (ids: ${scenario.spacecraft.map((s) => s.id).join(', ')})`);
-  const stationIndex = scenario.stations.findIndex((s) => s.id === req.stationId);
-  const station = scenario.stations[stationIndex];
+  const station = scenario.stations.find((s) => s.id === req.stationId);
   if (!station) throw new UsageError(`--station-id: "${req.stationId}" is not in ${scenario.sources.networkFile} (ids: ${scenario.stations.map((s) => s.id).join(', ')})`);
   const radio = req.radioId === undefined ? sc.radios[0] : sc.radios.find((r) => r.id === req.radioId);
   if (!radio) {
     if (req.radioId !== undefined) throw new UsageError(`--radio-id: "${req.radioId}" is not a radio of ${sc.id} (radios: ${sc.radios.map((r) => r.id).join(', ') || 'none'})`);
-    throw new ScenarioError([{ file: scenario.sources.spacecraftFile, path: `spacecraft ${sc.id}.radios`, message: 'has no radio; a budget needs one' }]);
+    throw new ScenarioError([{ file: scenario.sources.spacecraftFile, path: `spacecraft ${sc.id}.radios`, message: `has no radio; ${command} needs one` }]);
   }
-  if (req.elevationDeg === undefined && req.rangeKm === undefined) throw new UsageError('budget: give --elevation DEG or --range-km KM (or both)');
+  if (req.elevationDeg === undefined && req.rangeKm === undefined) throw new UsageError(`${command}: give --elevation DEG or --range-km KM (or both)`);
   const site = makeSite(station.id, station.latitudeDeg, station.longitudeDeg, station.heightKm);
   const stationRadiusKm = Math.hypot(...site.ecefKm);
   const orbitRadiusKm = typicalRadiusKm(sc);
   const elevationDeg = req.elevationDeg ?? elevationForRangeDeg(stationRadiusKm, orbitRadiusKm, req.rangeKm!);
   const rangeKm = req.rangeKm ?? slantRangeKm(stationRadiusKm, orbitRadiusKm, elevationDeg);
   const minEl = Math.min(lowestMaskDeg(station), Math.max(0, elevationDeg));
-  let link: PreparedLink = prepareRadioAtStation(radio, station, site, scenario.link, minEl);
+  const link = prepareRadioAtStation(radio, station, site, scenario.link, minEl);
+  return { sc, radio, link, look: { azimuthDeg: 0, elevationDeg, rangeKm, rangeRateKmS: 0 }, orbitRadiusKm };
+}
+
+export function singleBudget(scenario: Scenario, req: SingleBudgetRequest): SingleBudget {
+  const point = preparePoint(scenario, req, 'budget');
+  const { sc, radio, look, orbitRadiusKm } = point;
+  let link = point.link;
   if (req.atmosphereDb !== undefined) link = { ...link, atmosphere: fixedAtmosphere(req.atmosphereDb, link.atmosphere) };
   if (req.pointingLossDb !== undefined) link = { ...link, pointingLossDb: req.pointingLossDb };
   if (req.extraLossDb !== undefined) link = { ...link, extraLossDb: req.extraLossDb };
-  const look: Look = { azimuthDeg: 0, elevationDeg, rangeKm, rangeRateKmS: 0 };
   const terms = budgetTerms(link, look).map((t) => {
     if (req.atmosphereDb !== undefined && /^(Gaseous|Rain|Cloud|Scintillation)/.test(t.name)) return { ...t, source: 'replaced by --atmosphere-db' };
     if (req.atmosphereDb !== undefined && t.name === 'Atmosphere total') return { ...t, source: 'given (--atmosphere-db)' };
     if (req.pointingLossDb !== undefined && t.name === 'Pointing loss') return { ...t, source: 'given (--pointing-loss-db)' };
     return t;
   });
-  return { spacecraftId: sc.id, stationId: station.id, radioId: radio.id, look, orbitRadiusKm, terms };
+  return { spacecraftId: sc.id, stationId: req.stationId, radioId: radio.id, look, orbitRadiusKm, terms };
 }

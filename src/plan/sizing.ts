@@ -42,16 +42,16 @@
  * Pure: no I/O.
  */
 import { ModelRangeError, ScenarioError, UsageError } from '../errors.js';
-import { makeSite } from '../geometry/earth.js';
-import { elevationForRangeDeg, slantRangeKm } from '../geometry/slant.js';
 import type { Look } from '../geometry/types.js';
+import type { AtmosphereTable } from '../link/atmosphere/types.js';
 import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type PreparedLink } from '../link/types.js';
 import type { Radio, Scenario, Span, Station } from '../scenario/types.js';
 import { findContacts, prepareGeometry, type Geometry } from './contacts.js';
 import { integrateContacts, linkKey, lowestMaskDeg, prepareLinks, prepareRadioAtStation, type LinkSetup } from './link.js';
 import { maxDepth, scheduleContacts } from './schedule.js';
-import { typicalRadiusKm } from './single.js';
+import { preparePoint } from './single.js';
+import { planResult } from './run.js';
 import type { Contact, PlanResult } from './types.js';
 
 export type SolveFor = 'power' | 'dish' | 'symbol-rate';
@@ -114,6 +114,8 @@ export interface SizingContext {
   baseline: Contact[];
   basePlan: PlanResult;
   linkStepS: number;
+  /** Atmosphere tables by input: candidates that change power or symbol rate reuse them. */
+  atmosphereTables: Map<string, AtmosphereTable>;
 }
 
 export function prepareSizingContext(scenario: Scenario, span: Span, linkStepS = DEFAULT_SIZING_LINK_STEP_S): SizingContext {
@@ -121,17 +123,8 @@ export function prepareSizingContext(scenario: Scenario, span: Span, linkStepS =
   const found = findContacts(scenario, geometry, span);
   const setup = prepareLinks(scenario, geometry);
   integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);
-  const basePlan: PlanResult = {
-    span,
-    linkStepS,
-    availabilityPercent: scenario.link.availabilityPercent,
-    spacecraft: scenario.spacecraft.map((s) => ({ id: s.id, name: s.name, priority: s.priority })),
-    stations: scenario.stations.map((s) => ({ id: s.id, name: s.name, timeZone: s.timeZone })),
-    contacts: found.contacts,
-    warnings: [...found.warnings, ...setup.warnings],
-    stats: { propagations: 0, linkSamples: 0 },
-  };
-  return { scenario, span, geometry, baseline: found.contacts, basePlan, linkStepS };
+  const basePlan = planResult(scenario, span, linkStepS, found.contacts, [...found.warnings, ...setup.warnings], { propagations: 0, linkSamples: 0 });
+  return { scenario, span, geometry, baseline: found.contacts, basePlan, linkStepS, atmosphereTables: new Map() };
 }
 
 /** True when some station has more windows in progress at once than antennas (setup included). */
@@ -165,7 +158,7 @@ function deliveredBits(ctx: SizingContext, spacecraftId: string, cand: Candidate
       const changed = (isTarget && cand.radio !== undefined) || stationChanged;
       if (!changed) continue;
       if (!isTarget && basis === 'unscheduled') continue; // other spacecraft do not count then
-      links.set(linkKey(sc.id, st.id), prepareRadioAtStation(radio, st, geometry.sites[i]!, scenario.link, lowestMaskDeg(st)));
+      links.set(linkKey(sc.id, st.id), prepareRadioAtStation(radio, st, geometry.sites[i]!, scenario.link, lowestMaskDeg(st), ctx.atmosphereTables));
     }
   });
   const setup: LinkSetup = { links, warnings: [] };
@@ -432,18 +425,8 @@ export interface PointSizingResult {
 
 /** The prepared budget and look of a one-geometry request (shared with the tests). */
 export function pointLink(scenario: Scenario, req: Omit<PointSizingRequest, 'targetRateBps'>): { link: PreparedLink; look: Look; radio: Radio } {
-  const { sc, radio } = findSpacecraft(scenario, req.spacecraftId);
-  const station = scenario.stations.find((s) => s.id === req.stationId);
-  if (!station) throw new UsageError(`--station-id: "${req.stationId}" is not in ${scenario.sources.networkFile} (ids: ${scenario.stations.map((s) => s.id).join(', ')})`);
-  if (req.elevationDeg === undefined && req.rangeKm === undefined) throw new UsageError('size: give --elevation DEG or --range-km KM (or both) with --target-rate-bps');
-  const site = makeSite(station.id, station.latitudeDeg, station.longitudeDeg, station.heightKm);
-  const stationRadiusKm = Math.hypot(...site.ecefKm);
-  const orbitRadiusKm = typicalRadiusKm(sc);
-  const elevationDeg = req.elevationDeg ?? elevationForRangeDeg(stationRadiusKm, orbitRadiusKm, req.rangeKm!);
-  const rangeKm = req.rangeKm ?? slantRangeKm(stationRadiusKm, orbitRadiusKm, elevationDeg);
-  const minEl = Math.min(lowestMaskDeg(station), Math.max(0, elevationDeg));
-  const link = prepareRadioAtStation(radio, station, site, scenario.link, minEl);
-  return { link, radio, look: { azimuthDeg: 0, elevationDeg, rangeKm, rangeRateKmS: 0 } };
+  const { link, look, radio } = preparePoint(scenario, req, 'size');
+  return { link, radio, look };
 }
 
 /** One-geometry mode (see the head comment). */

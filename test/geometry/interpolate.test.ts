@@ -8,7 +8,7 @@ import { describe, it, expect } from 'vitest';
 import { loadScenario } from '../../src/scenario/load.js';
 import { demoFiles } from '../../src/scenario/paths.js';
 import { makeTarget } from '../../src/plan/contacts.js';
-import { StateInterpolator } from '../../src/geometry/interpolate.js';
+import { StateInterpolator, INTERPOLATION_NODE_STEP_S } from '../../src/geometry/interpolate.js';
 
 const scenario = loadScenario(demoFiles());
 const span = { startMs: scenario.span!.startMs, endMs: scenario.span!.startMs + 86_400_000 };
@@ -34,7 +34,7 @@ describe('StateInterpolator', () => {
       expect(maxPos).toBeLessThan(twoMetresKm);
       expect(maxVel).toBeLessThan(halfMetrePerSKmS);
       // two propagations per node interval at most
-      expect(interp.propagations).toBeLessThanOrEqual(2 * Math.ceil(86_400 / 30) + 2);
+      expect(interp.propagations).toBeLessThanOrEqual(2 * Math.ceil(86_400 / INTERPOLATION_NODE_STEP_S) + 2);
     });
   }
 });
