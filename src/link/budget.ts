@@ -261,8 +261,12 @@ export function prepareLink(
   };
 }
 
-/** Evaluate the budget at one look (elevation, range, range rate) into `out`. Allocates nothing. */
-export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample): void {
+/**
+ * Evaluate the budget at one look (elevation, range, range rate) into `out`. Allocates
+ * nothing. With `full` false the reference columns (Shannon capacity, Doppler) are left
+ * as they were: the volume integration needs neither.
+ */
+export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full = true): void {
   const f = p.frequencyHz;
   out.freeSpaceLossDb = freeSpaceLossDb(look.rangeKm, f);
 
@@ -331,8 +335,10 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample): void
     rateBps = idx >= 0 ? entry.spectralEfficiencyBitsPerSymbol * p.symbolRateBaud : 0;
   }
   out.rateBps = look.elevationDeg >= p.minDataElevationDeg ? rateBps : 0;
-  out.shannonRateBps = shannonCapacityBps(p.occupiedBandwidthHz, cN0DbHz);
-  out.dopplerHz = dopplerShiftHz(f, look.rangeRateKmS);
+  if (full) {
+    out.shannonRateBps = shannonCapacityBps(p.occupiedBandwidthHz, cN0DbHz);
+    out.dopplerHz = dopplerShiftHz(f, look.rangeRateKmS);
+  }
 }
 
 /** The budget at one look, term by term, for a handbook-style printout (allocates). */

@@ -31,9 +31,11 @@ export function linearToDb(ratio: number): number {
   return 10 * Math.log10(ratio);
 }
 
-/** Decibels to power ratio. */
+const LN10_OVER_10 = Math.LN10 / 10;
+
+/** Decibels to power ratio: 10^(dB/10), computed as exp(dB ln10 / 10) (faster than pow in V8, same to ~1 ulp). */
 export function dbToLinear(db: number): number {
-  return Math.pow(10, db / 10);
+  return Math.exp(db * LN10_OVER_10);
 }
 
 /** Amplitude (field) ratio to decibels: 20*log10(ratio). */

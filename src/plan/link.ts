@@ -139,24 +139,30 @@ interface Accumulator {
   dataEndMs: number;
   lastMs: number;
   lastRate: number;
-  lastModcod: string;
+  /** MODCOD (adaptive: table index; fixed: 0) of the last sample, -1 when it carried nothing. */
+  lastModcod: number;
   volumeBits: number;
   closedS: number;
   worstMarginDb: number;
   worstAtMs: number;
   worstElevationDeg: number;
   peakRateBps: number;
-  timeInModcodS: Record<string, number>;
+  /** Seconds per MODCOD index (named only at the end). */
+  modcodTimeS: Float64Array;
   samples: number;
   binStartMs: number;
   /** Volume per 15-min bin (fractional while integrating). */
   bins: number[];
 }
 
-function modcodName(link: PreparedLink, s: LinkSample): string {
-  if (s.rateBps <= 0) return '';
-  if (link.codingKind === 'fixed') return link.codingName;
-  return link.modcodTable[s.modcodIndex]?.name ?? '';
+/** The MODCOD a sample carried data with: table index (adaptive), 0 (fixed), -1 (none). */
+function modcodIndexOf(link: PreparedLink, s: LinkSample): number {
+  if (s.rateBps <= 0) return -1;
+  return link.codingKind === 'fixed' ? 0 : s.modcodIndex;
+}
+
+function modcodNameAt(link: PreparedLink, index: number): string {
+  return link.codingKind === 'fixed' ? link.codingName : (link.modcodTable[index]?.name ?? '');
 }
 
 /** Adds the sample at tMs to the contact's sums (trapezoid between consecutive samples). */
@@ -169,7 +175,7 @@ function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): vo
   }
   const inData = tMs >= acc.dataStartMs && tMs <= acc.dataEndMs;
   const rate = inData ? s.rateBps : 0;
-  const name = inData ? modcodName(acc.link, s) : '';
+  const modcod = inData ? modcodIndexOf(acc.link, s) : -1;
   if (rate > acc.peakRateBps) acc.peakRateBps = rate;
   if (inData && acc.lastMs >= acc.dataStartMs) {
     const dtS = (tMs - acc.lastMs) / 1000;
@@ -180,19 +186,19 @@ function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): vo
     while (acc.bins.length <= bin) acc.bins.push(0);
     acc.bins[bin]! += dv;
     const half = 0.5 * dtS;
-    if (acc.lastRate > 0) {
+    if (acc.lastModcod >= 0) {
       acc.closedS += half;
-      acc.timeInModcodS[acc.lastModcod] = (acc.timeInModcodS[acc.lastModcod] ?? 0) + half;
+      acc.modcodTimeS[acc.lastModcod]! += half;
     }
-    if (rate > 0) {
+    if (modcod >= 0) {
       acc.closedS += half;
-      acc.timeInModcodS[name] = (acc.timeInModcodS[name] ?? 0) + half;
+      acc.modcodTimeS[modcod]! += half;
     }
   }
   if (inData) {
     acc.lastMs = tMs;
     acc.lastRate = rate;
-    acc.lastModcod = name;
+    acc.lastModcod = modcod;
   }
 }
 
@@ -235,14 +241,14 @@ export function integrateContacts(
       dataEndMs: c.losMs,
       lastMs: -Infinity,
       lastRate: 0,
-      lastModcod: '',
+      lastModcod: -1,
       volumeBits: 0,
       closedS: 0,
       worstMarginDb: Infinity,
       worstAtMs: c.aosMs,
       worstElevationDeg: Number.NaN,
       peakRateBps: 0,
-      timeInModcodS: {},
+      modcodTimeS: new Float64Array(Math.max(1, link.modcodTable.length)),
       samples: 0,
       binStartMs: Math.floor(c.aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS,
       bins: [],
@@ -261,7 +267,7 @@ export function integrateContacts(
     const evalAt = (acc: Accumulator, tMs: number) => {
       if (!interp.stateAt(tMs, state)) return;
       lookFrom(acc.site, state, look);
-      evaluateLink(acc.link, look, sample);
+      evaluateLink(acc.link, look, sample, false);
       stats.linkSamples++;
       addSample(acc, tMs, look, sample);
     };
@@ -301,7 +307,7 @@ export function integrateContacts(
       for (const acc of active) {
         if (tMs <= acc.contact.aosMs || tMs >= acc.contact.losMs) continue;
         lookFrom(acc.site, state, look);
-        evaluateLink(acc.link, look, sample);
+        evaluateLink(acc.link, look, sample, false);
         stats.linkSamples++;
         addSample(acc, tMs, look, sample);
       }
@@ -329,6 +335,14 @@ export function wholeBitBins(bins: readonly number[]): { bins: number[]; totalBi
   return { bins: out, totalBits: prevRounded };
 }
 
+function modcodTimes(acc: Accumulator): Record<string, number> {
+  const out: Record<string, number> = {};
+  acc.modcodTimeS.forEach((seconds, i) => {
+    if (seconds > 0) out[modcodNameAt(acc.link, i)] = seconds;
+  });
+  return out;
+}
+
 function finish(acc: Accumulator): void {
   const whole = wholeBitBins(acc.bins);
   const link: ContactLink = {
@@ -341,7 +355,7 @@ function finish(acc: Accumulator): void {
     worstMarginAtMs: acc.worstAtMs,
     worstMarginElevationDeg: acc.worstElevationDeg,
     peakRateBps: acc.peakRateBps,
-    timeInModcodS: acc.timeInModcodS,
+    timeInModcodS: modcodTimes(acc),
     samples: acc.samples,
     binStartMs: acc.binStartMs,
     volumeBinsBits: whole.bins,
