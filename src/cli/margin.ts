@@ -21,7 +21,7 @@ export function registerMargin(program: Command, io: CliIo, setExit: SetExit): v
   ).action((raw) => {
     const opts = readCommonOptions(raw);
     const scenario = loadScenario(opts.files);
-    const span = spanFor(opts, scenario, io.nowMs());
+    const span = spanFor(opts, scenario, io);
     const plan = runPlan(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
     const report: MarginReport = { span, availabilityPercent: scenario.link.availabilityPercent, rows: marginRows(scenario, plan) };
     const json = renderMarginJson(report);

@@ -9,6 +9,7 @@ import { demoFiles } from '../scenario/paths.js';
 import { parseInstant, type ScenarioFiles } from '../scenario/load.js';
 import { parseDurationS } from '../time/duration.js';
 import type { Scenario, Span } from '../scenario/types.js';
+import type { CliIo } from './io.js';
 
 export type Format = 'table' | 'json' | 'csv';
 
@@ -82,8 +83,12 @@ export function readCommonOptions(raw: RawOptions): CommonOptions {
  * The span to walk: --from/--days, else the scenario's own window, else
  * today 00:00 UTC for 7 days (the clock is read only here, by the CLI).
  */
-export function spanFor(opts: CommonOptions, scenario: Scenario, nowMs: number): Span {
+export function spanFor(opts: CommonOptions, scenario: Scenario, io: CliIo): Span {
   const days = opts.days ?? (scenario.span ? (scenario.span.endMs - scenario.span.startMs) / 86_400_000 : 7);
-  const startMs = opts.fromMs ?? scenario.span?.startMs ?? Math.floor(nowMs / 86_400_000) * 86_400_000;
+  let startMs = opts.fromMs ?? scenario.span?.startMs;
+  if (startMs === undefined) {
+    startMs = Math.floor(io.nowMs() / 86_400_000) * 86_400_000;
+    io.err(`note: no --from and no window in the spacecraft file: starting today, ${new Date(startMs).toISOString().slice(0, 10)} 00:00 UTC\n`);
+  }
   return { startMs, endMs: startMs + days * 86_400_000 };
 }

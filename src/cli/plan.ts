@@ -30,7 +30,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       const opts = readCommonOptions(raw);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
       const scenario = loadScenario(opts.files);
-      const span = spanFor(opts, scenario, io.nowMs());
+      const span = spanFor(opts, scenario, io);
       const progress = progressLine(io, 'plan');
       const unscheduled = runPlan(scenario, span, {
         ...(opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}),

@@ -81,7 +81,7 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
         json = pointSizingJson(res);
         reached = res.requiredPowerDbw !== null;
       } else if (target !== undefined) {
-        const span = spanFor(opts, scenario, io.nowMs());
+        const span = spanFor(opts, scenario, io);
         const ctx = prepareSizingContext(scenario, span, opts.stepS ?? DEFAULT_SIZING_LINK_STEP_S);
         const res = sizeForWeek(ctx, {
           spacecraftId: raw.spacecraftId,

@@ -61,7 +61,7 @@ export function registerTrace(program: Command, io: CliIo, setExit: SetExit): vo
     if (opts.format === 'json') throw new UsageError('--format: trace writes CSV only (use --format csv for stdout)');
     if (opts.zone !== undefined) throw new UsageError('--zone: trace times are always UTC (column time_utc)');
     const scenario = loadScenario(opts.files);
-    const span = spanFor(opts, scenario, io.nowMs());
+    const span = spanFor(opts, scenario, io);
     const traceOpts: TraceOptions = { stepS: opts.stepS ?? DEFAULT_TRACE_STEP_S, inContactOnly: raw.inContact === true };
     if (typeof raw.spacecraftId === 'string') traceOpts.spacecraftId = raw.spacecraftId;
     if (typeof raw.stationId === 'string') traceOpts.stationId = raw.stationId;

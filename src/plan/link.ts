@@ -24,6 +24,7 @@ import { wavelengthM } from '../link/units.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { LinkSettings, Radio, Scenario, Station } from '../scenario/types.js';
 import type { Geometry } from './contacts.js';
+import { ModelRangeError, ScenarioError } from '../errors.js';
 import { VOLUME_BIN_MS, type Contact, type ContactLink } from './types.js';
 
 /** Frequency above which a missing rain climate is worth a warning, Hz. */
@@ -86,6 +87,24 @@ export function prepareRadioAtStation(
   minElevationDeg: number,
   tableCache?: Map<string, AtmosphereTable>,
 ): PreparedLink {
+  try {
+    return prepareRadioAtStationUnnamed(radio, station, site, settings, minElevationDeg, tableCache);
+  } catch (err) {
+    // A model asked for outside its range (a frequency above P.618's 55 GHz, a pointing
+    // error wider than the beam) becomes one line naming the radio and the station.
+    if (err instanceof ModelRangeError) throw new ScenarioError([{ file: `radio ${radio.id} at station ${station.id}`, path: '', message: err.message }]);
+    throw err;
+  }
+}
+
+function prepareRadioAtStationUnnamed(
+  radio: Radio,
+  station: Station,
+  site: Site,
+  settings: LinkSettings,
+  minElevationDeg: number,
+  tableCache: Map<string, AtmosphereTable> | undefined,
+): PreparedLink {
   const input = atmosphereInputFor(station, radio, settings);
   const cached = (inp: AtmosphereStationInput, minEl: number): AtmosphereTable => {
     const key = `${JSON.stringify(inp)}|${minEl}`;
@@ -104,8 +123,8 @@ export function prepareRadioAtStation(
     const { rainRate001MmH: _r, rainHeightKm: _h, cloudLiquidWaterKgM2: _c, ...clear } = input;
     opts.clearSkyAtmosphere = cached(clear, Math.min(minElevationDeg, station.receiver.atElevationDeg));
   }
-  return prepareLink(radio, station, settings, table, opts);
-}
+  return prepareLink(radio, station, settings, table, opts);}
+
 
 export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup {
   const links = new Map<string, PreparedLink>();

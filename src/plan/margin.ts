@@ -232,7 +232,28 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
     for (const sc of scenario.spacecraft) {
       const radio = sc.radios[0];
       const far = radii.get(sc.id);
-      if (!radio || !far) continue;
+      if (!radio) continue;
+      if (!far) {
+        // No orbit state anywhere in the span (e.g. decayed before it): nothing can be
+        // checked, and a gate must not pass silently.
+        rows.push({
+          station: station.id,
+          spacecraft: sc.id,
+          radioId: radio.id,
+          maskElevationDeg: maskCheckDeg,
+          maxRadiusKm: Number.NaN,
+          maxRadiusAtMs: Number.NaN,
+          worstRangeKm: Number.NaN,
+          maskMarginDb: Number.NaN,
+          maskModcod: 'no orbit state in the span',
+          maskRateBps: 0,
+          usableMaskDeg: null,
+          worstSeenMarginDb: null,
+          contacts: 0,
+          pass: false,
+        });
+        continue;
+      }
       const contacts = plan.contacts.filter((c) => c.stationId === station.id && c.spacecraftId === sc.id);
       let elevationDeg = maskCheckDeg;
       const target = geometry.targets.get(sc.id);

@@ -66,7 +66,7 @@ function jsonRow(r: MarginRow) {
     radio: r.radioId,
     maskElevationDeg: round(r.maskElevationDeg, 2),
     maxGeocentricRadiusKm: round(r.maxRadiusKm, 1),
-    maxGeocentricRadiusUtc: isoUtc(r.maxRadiusAtMs, 0),
+    maxGeocentricRadiusUtc: (Number.isFinite(r.maxRadiusAtMs) ? isoUtc(r.maxRadiusAtMs, 0) : null),
     worstRangeKm: round(r.worstRangeKm, 1),
     maskMarginDb: round(r.maskMarginDb, 2),
     maskModcod: r.maskModcod,

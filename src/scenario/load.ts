@@ -90,7 +90,8 @@ function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraf
 /** ISO 8601 instant to epoch ms; a time without a zone is UTC. */
 export function parseInstant(text: string): number | undefined {
   const dt = DateTime.fromISO(text, { zone: 'utc', setZone: true });
-  return dt.isValid ? dt.toMillis() : undefined;
+  // Real UTC offsets run from -12:00 to +14:00.
+  return dt.isValid && dt.offset >= -12 * 60 && dt.offset <= 14 * 60 ? dt.toMillis() : undefined;
 }
 
 function checkUnique(ids: string[], file: string, path: string, problems: Problem[]): void {

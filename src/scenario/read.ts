@@ -34,7 +34,7 @@ export function parseStructured(text: string, file: string): ReadResult<unknown>
     return { ok: true, value: JSON.parse(text) as unknown };
   } catch (err) {
     const kind = ext === '.yaml' || ext === '.yml' ? 'YAML' : 'JSON';
-    const msg = (err as Error).message.split('\n')[0] ?? 'parse error';
+    const msg = ((err as Error).message.split('\n')[0] ?? 'parse error').replace(/:\s*$/, '');
     return fail(file, '', `is not valid ${kind}: ${msg}`);
   }
 }

@@ -22,6 +22,7 @@ import { runPlan } from '../../src/plan/run.js';
 import { loadScenario } from '../../src/scenario/load.js';
 import { demoFiles } from '../../src/scenario/paths.js';
 import type { Scenario, Span } from '../../src/scenario/types.js';
+import { elementSetFromTle, FIXTURE_EPOCH_MS, inventedDecayingOrbit, makeTle } from '../fixtures/orbits.js';
 
 const DEG = Math.PI / 180;
 const hundredthDb = 0.01;
@@ -196,5 +197,20 @@ describe('passbudget margin exit code', () => {
     expect(code).toBe(0);
     expect(out.trim().split('\n')).toHaveLength(1 + 6);
     expect(out).not.toMatch(/FAIL/);
+  });
+});
+
+describe('a spacecraft with no orbit state in the span', () => {
+  it('gives a FAIL row, never a silent pass', () => {
+    const base = loadScenario(demoFiles());
+    const tle = makeTle(inventedDecayingOrbit());
+    const sc = { ...base.spacecraft[0]!, id: 'DECAYED', orbit: { kind: 'elements' as const, sets: [elementSetFromTle(tle, 'test')] } };
+    const scenario = { ...base, spacecraft: [sc], stations: base.stations.slice(0, 1) };
+    // the decaying orbit ends ~45 h after its epoch: start the span 3 days after it
+    const span = { startMs: FIXTURE_EPOCH_MS + 3 * 86_400_000, endMs: FIXTURE_EPOCH_MS + 4 * 86_400_000 };
+    const rows = marginRows(scenario, runPlan(scenario, span));
+    expect(rows).toHaveLength(1);
+    expect(rows[0]!.pass).toBe(false);
+    expect(rows[0]!.maskModcod).toBe('no orbit state in the span');
   });
 });
