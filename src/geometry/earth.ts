@@ -21,6 +21,11 @@ export const WGS84_FLATTENING = 1 / 298.257223563;
 export const WGS84_ECCENTRICITY_SQUARED = WGS84_FLATTENING * (2 - WGS84_FLATTENING);
 /** Polar radius b = a (1 - f), km. NIMA TR8350.2 3rd ed., Table 3.3 (derived). */
 export const WGS84_POLAR_RADIUS_KM = WGS84_EQUATORIAL_RADIUS_KM * (1 - WGS84_FLATTENING);
+/**
+ * Effective Earth radius for tropospheric paths (k = 4/3 of a 6,375 km Earth), km:
+ * the value ITU-R P.618-14 sec. 2.2.1.1 (step 2) and P.676-13 Annex 2 use.
+ */
+export const ITU_EFFECTIVE_EARTH_RADIUS_KM = 8500;
 /** Earth's gravitational constant GM (with atmosphere), km^3/s^2. NIMA TR8350.2 3rd ed., Table 3.1. */
 export const WGS84_GM_KM3_S2 = 398_600.4418;
 /** Nominal mean angular velocity of the Earth, rad/s. NIMA TR8350.2 3rd ed., Table 3.1. */

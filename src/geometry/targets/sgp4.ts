@@ -22,7 +22,7 @@
 import { json2satrec, sgp4, twoline2satrec, type SatRec } from 'satellite.js';
 import { ScenarioError } from '../../errors.js';
 import type { ElementSet, OmmElements, Span } from '../../scenario/types.js';
-import { gmstRadAt, temeToEcef } from '../frames.js';
+import { gmstRadAt, JULIAN_DATE_UNIX_EPOCH, temeToEcef } from '../frames.js';
 import type { Target } from '../types.js';
 
 /** Status of one SGP4 call: 0 ok, otherwise satellite.js SatRecError code (or -1). */
@@ -124,7 +124,6 @@ function ommToJson(omm: OmmElements, epochIso: string): Parameters<typeof json2s
 }
 
 const MS_PER_DAY = 86_400_000;
-const JD_UNIX_EPOCH = 2_440_587.5;
 /** Largest accepted gap between ElementSet.epochMs and the satrec's own epoch: covers
  * json2satrec's cut to whole ms and the ~40 us resolution of a Julian-date double. */
 const EPOCH_AGREEMENT_MS = 2;
@@ -150,7 +149,7 @@ export function satrecFromElementSet(set: ElementSet): SatRec {
   } else {
     throw new ScenarioError([{ file: set.origin, path: '', message: 'element set has neither TLE lines nor OMM elements' }]);
   }
-  const satrecEpochMs = (satrec.jdsatepoch - JD_UNIX_EPOCH) * MS_PER_DAY;
+  const satrecEpochMs = (satrec.jdsatepoch - JULIAN_DATE_UNIX_EPOCH) * MS_PER_DAY;
   if (!(Math.abs(satrecEpochMs - set.epochMs) <= EPOCH_AGREEMENT_MS)) {
     throw new ScenarioError([
       { file: set.origin, path: 'epochMs', message: `epoch ${set.epochMs} ms disagrees with the elements' own epoch ${satrecEpochMs.toFixed(3)} ms` },

@@ -26,11 +26,11 @@ import {
   type P838HvCoefficients,
   type P838PathCoefficients,
 } from './p838.js';
+import { ITU_EFFECTIVE_EARTH_RADIUS_KM } from '../../geometry/earth.js';
 
 const DEG_TO_RAD = Math.PI / 180;
 const RAD_TO_DEG = 180 / Math.PI;
 /** Effective radius of the Earth, km (P.618-14 §2.2.1.1 step 2). */
-const EFFECTIVE_EARTH_RADIUS_KM = 8500;
 export const P618_RAIN_MAX_FREQ_GHZ = 55;
 export const P618_RAIN_MIN_PERCENT = 0.001;
 export const P618_RAIN_MAX_PERCENT = 5;
@@ -149,7 +149,7 @@ export function rainAttenuationDetail(rp: RainPath, elevationDeg: number, d: Rai
   const ls =
     elevationDeg >= 5
       ? dh / sinEl
-      : (2 * dh) / (Math.sqrt(sinEl * sinEl + (2 * dh) / EFFECTIVE_EARTH_RADIUS_KM) + sinEl);
+      : (2 * dh) / (Math.sqrt(sinEl * sinEl + (2 * dh) / ITU_EFFECTIVE_EARTH_RADIUS_KM) + sinEl);
   // Step 3
   const lg = ls * cosEl;
   // Step 5

@@ -38,12 +38,12 @@ import { ModelRangeError } from '../../errors.js';
 import { P676_13_H0_COEFFICIENTS, P676_13_H0_STRIDE } from './p676-13-h0.js';
 import { P676_13_OXYGEN_LINES, P676_13_OXYGEN_LINE_STRIDE } from './p676-13-oxygen-lines.js';
 import { P676_13_WATER_LINES, P676_13_WATER_LINE_STRIDE } from './p676-13-water-lines.js';
+import { ITU_EFFECTIVE_EARTH_RADIUS_KM } from '../../geometry/earth.js';
 
 const DEG_TO_RAD = Math.PI / 180;
 export const P676_MIN_FREQ_GHZ = 1;
 export const P676_MAX_FREQ_GHZ = 350;
 /** Effective Earth radius used by the low-elevation path (P.676-11 Annex 2 §2.2.2), km. */
-const EFFECTIVE_EARTH_RADIUS_KM = 8500;
 /** Elevation below which the curved-Earth path replaces 1/sin(el), degrees. */
 export const P676_LOW_ELEVATION_LIMIT_DEG = 5;
 
@@ -224,7 +224,7 @@ export function gasZenith(
 }
 
 function curvedEarthPathKm(heightKm: number, elevationRad: number, stationHeightKm: number): number {
-  const r = EFFECTIVE_EARTH_RADIUS_KM + stationHeightKm;
+  const r = ITU_EFFECTIVE_EARTH_RADIUS_KM + stationHeightKm;
   const x = Math.tan(elevationRad) * Math.sqrt(r / heightKm);
   const f = 1 / (0.661 * x + 0.339 * Math.sqrt(x * x + 5.51));
   return (Math.sqrt(heightKm * r) * f) / Math.cos(elevationRad);

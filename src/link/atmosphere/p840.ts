@@ -26,6 +26,7 @@
  */
 
 import { ModelRangeError } from '../../errors.js';
+import { ITU_EFFECTIVE_EARTH_RADIUS_KM } from '../../geometry/earth.js';
 
 const DEG_TO_RAD = Math.PI / 180;
 export const P840_MIN_FREQ_GHZ = 1;
@@ -34,7 +35,6 @@ export const P840_MAX_FREQ_GHZ = 200;
 export const P840_CLOUD_TEMPERATURE_K = 273.75;
 /** Nominal cloud layer height for the below-5° path factor, km (our assumption). */
 export const CLOUD_LAYER_HEIGHT_KM = 2;
-const EFFECTIVE_EARTH_RADIUS_KM = 8500;
 
 export interface WaterPermittivity {
   epsReal: number;
@@ -86,7 +86,7 @@ export function cloudMassAbsorptionDbPerKgM2(freqGhz: number): number {
 export function cloudSlantFactor(elevationDeg: number): number {
   const s = Math.sin(elevationDeg * DEG_TO_RAD);
   if (elevationDeg >= 5) return 1 / s;
-  return 1 / Math.sqrt(s * s + (2 * CLOUD_LAYER_HEIGHT_KM) / EFFECTIVE_EARTH_RADIUS_KM);
+  return 1 / Math.sqrt(s * s + (2 * CLOUD_LAYER_HEIGHT_KM) / ITU_EFFECTIVE_EARTH_RADIUS_KM);
 }
 
 /** Cloud attenuation A = K_L L / sin(el), dB (Eq. 13; low-elevation factor as above). */
