@@ -6,12 +6,18 @@
  * Sampling: per spacecraft, one common grid span.start + k * stepS; the target
  * is propagated once per grid time and that state serves every station in
  * contact then. Each contact is also evaluated at its own data start and end.
- * Volume rule (trapezoid): data flows from AOS + acquisition time to LOS; the
- * rate at each sample (0 when the link does not close or the elevation is
- * below the minimum data elevation) is integrated with the trapezoid rule over
- * the samples [data start, grid times inside, data end]. Time in each MODCOD
- * gives each sample half of the intervals beside it. The worst margin is the
- * lowest over the samples of the whole contact (AOS..LOS).
+ * Volume rule: data flows from AOS + acquisition time to LOS while the elevation is
+ * at or above the minimum data elevation, at the rate the link supports (the
+ * adaptive table's best entry, or the fixed code's rate when its margin is >= 0).
+ * That rate is a step function of the budget, so between two samples
+ * [data start, grid times inside, data end] the budget's closing quantity (Es/N0
+ * net of losses and required margin, or the fixed code's margin) and the
+ * elevation are taken linear in time, the segment is cut where they cross a
+ * step or the minimum data elevation (and at 15-minute bin edges), and each
+ * piece carries its rate: the step function is integrated exactly up to that
+ * interpolation (integrateSegment). Time in each MODCOD comes from the same
+ * pieces. The worst margin is the lowest over the samples of the whole contact
+ * (AOS..LOS, both edges sampled).
  */
 import { lookFrom, newLook } from '../geometry/topocentric.js';
 import { StateInterpolator } from '../geometry/interpolate.js';
@@ -22,6 +28,7 @@ import { prepareLink, evaluateLink } from '../link/budget.js';
 import { polarizationTiltDeg } from '../link/polarization.js';
 import { wavelengthM } from '../link/units.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
+import { modcodStaircase, stepAt, type ModcodStaircase } from '../link/modcod/acm.js';
 import type { LinkSettings, Radio, Scenario, Station } from '../scenario/types.js';
 import type { Geometry } from './contacts.js';
 import { ModelRangeError, ScenarioError } from '../errors.js';
@@ -29,8 +36,12 @@ import { VOLUME_BIN_MS, type Contact, type ContactLink } from './types.js';
 
 /** Frequency above which a missing rain climate is worth a warning, Hz. */
 export const RAIN_WARNING_ABOVE_HZ = 3e9;
-/** Link sampling step inside contacts, s: volumes agree with a 0.1 s sum to 0.3 % per contact (demo day 1). */
-export const DEFAULT_LINK_STEP_S = 10;
+/**
+ * Link sampling step inside contacts, s. With the step-function integration, demo
+ * day 1 volumes agree with 0.1 s sampling to 0.035 % per contact at 10 s, 0.09 % at
+ * 20 s, 0.21 % at 30 s, 0.65 % at 60 s (worst contact); 30 s keeps within 0.5 %.
+ */
+export const DEFAULT_LINK_STEP_S = 30;
 
 export interface LinkSetup {
   /** PreparedLink by `${spacecraftId}|${stationId}` for the data radio. */
@@ -149,24 +160,61 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup 
   return { links, warnings };
 }
 
+/**
+ * How the data rate follows from one sample, as a step function of a "closing
+ * quantity" q: adaptive coding, q = Es/N0 - implementation loss - required margin
+ * against the table's staircase (modcodStaircase: the same choice as bestModcod);
+ * fixed coding, q = margin against one step at 0 dB. No data below the minimum
+ * data elevation.
+ */
+interface RateModel {
+  adaptive: boolean;
+  stairs: ModcodStaircase;
+  /** Bit/s of each step. */
+  rateBps: Float64Array;
+  qOffsetDb: number;
+  minDataElevationDeg: number;
+}
+
+function rateModelOf(link: PreparedLink): RateModel {
+  if (link.codingKind === 'adaptive') {
+    const stairs = modcodStaircase(link.modcodTable);
+    return {
+      adaptive: true,
+      stairs,
+      rateBps: stairs.efficiency.map((e) => e * link.symbolRateBaud),
+      qOffsetDb: link.implementationLossDb + link.requiredMarginDb,
+      minDataElevationDeg: link.minDataElevationDeg,
+    };
+  }
+  return {
+    adaptive: false,
+    stairs: { thresholdsDb: Float64Array.of(0), efficiency: Float64Array.of(link.spectralEfficiencyBitsPerSymbol), index: Int32Array.of(0) },
+    rateBps: Float64Array.of(link.informationRateBps),
+    qOffsetDb: 0,
+    minDataElevationDeg: link.minDataElevationDeg,
+  };
+}
+
 /** Running sums of one contact while its samples come in. */
 interface Accumulator {
   contact: Contact;
   link: PreparedLink;
+  model: RateModel;
   site: Site;
   dataStartMs: number;
   dataEndMs: number;
+  /** Time, closing quantity and elevation of the last sample inside the data span. */
   lastMs: number;
-  lastRate: number;
-  /** MODCOD (adaptive: table index; fixed: 0) of the last sample, -1 when it carried nothing. */
-  lastModcod: number;
+  lastQ: number;
+  lastElevationDeg: number;
   volumeBits: number;
   closedS: number;
   worstMarginDb: number;
   worstAtMs: number;
   worstElevationDeg: number;
   peakRateBps: number;
-  /** Seconds per MODCOD index (named only at the end). */
+  /** Seconds per MODCOD table index (fixed coding: index 0), named only at the end. */
   modcodTimeS: Float64Array;
   samples: number;
   binStartMs: number;
@@ -174,17 +222,75 @@ interface Accumulator {
   bins: number[];
 }
 
-/** The MODCOD a sample carried data with: table index (adaptive), 0 (fixed), -1 (none). */
-function modcodIndexOf(link: PreparedLink, s: LinkSample): number {
-  if (s.rateBps <= 0) return -1;
-  return link.codingKind === 'fixed' ? 0 : s.modcodIndex;
-}
-
 function modcodNameAt(link: PreparedLink, index: number): string {
   return link.codingKind === 'fixed' ? link.codingName : (link.modcodTable[index]?.name ?? '');
 }
 
-/** Adds the sample at tMs to the contact's sums (trapezoid between consecutive samples). */
+/** Breakpoints of one segment (fractions of it), reused: steps + elevation + bin edges. */
+const breaks = new Float64Array(256);
+
+/**
+ * Integrates the rate over [t0, t1] with q and the elevation taken linear in time
+ * between the two samples: the segment is cut where q crosses a step threshold, where
+ * the elevation crosses the minimum data elevation and at 15-minute bin edges; each piece
+ * carries the rate of its midpoint. The step function is thus integrated exactly, up to
+ * the linear interpolation of q (smooth over a step of seconds).
+ */
+function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number, t1: number, q1: number, el1: number): void {
+  const m = acc.model;
+  const thr = m.stairs.thresholdsDb;
+  let n = 0;
+  breaks[n++] = 0;
+  const dq = q1 - q0;
+  if (dq !== 0) {
+    for (let k = 0; k < thr.length; k++) {
+      const f = ((thr[k] as number) - q0) / dq;
+      if (f > 0 && f < 1 && n < breaks.length - 8) breaks[n++] = f;
+    }
+  }
+  const del = el1 - el0;
+  if (del !== 0) {
+    const f = (m.minDataElevationDeg - el0) / del;
+    if (f > 0 && f < 1) breaks[n++] = f;
+  }
+  const span = t1 - t0;
+  for (let edge = acc.binStartMs + Math.ceil((t0 - acc.binStartMs) / VOLUME_BIN_MS) * VOLUME_BIN_MS; edge < t1; edge += VOLUME_BIN_MS) {
+    const f = (edge - t0) / span;
+    if (f > 0 && f < 1 && n < breaks.length - 1) breaks[n++] = f;
+  }
+  breaks[n++] = 1;
+  // insertion sort of the few breakpoints
+  for (let i = 1; i < n; i++) {
+    const v = breaks[i] as number;
+    let j = i - 1;
+    while (j >= 0 && (breaks[j] as number) > v) {
+      breaks[j + 1] = breaks[j] as number;
+      j--;
+    }
+    breaks[j + 1] = v;
+  }
+  for (let i = 0; i + 1 < n; i++) {
+    const fa = breaks[i] as number;
+    const fb = breaks[i + 1] as number;
+    if (fb <= fa) continue;
+    const fm = 0.5 * (fa + fb);
+    if (el0 + del * fm < m.minDataElevationDeg) continue;
+    const step = stepAt(m.stairs, q0 + dq * fm);
+    if (step < 0) continue;
+    const rate = m.rateBps[step] as number;
+    const dtS = ((fb - fa) * span) / 1000;
+    const dv = rate * dtS;
+    acc.volumeBits += dv;
+    const bin = Math.floor((t0 + fm * span - acc.binStartMs) / VOLUME_BIN_MS);
+    while (acc.bins.length <= bin) acc.bins.push(0);
+    acc.bins[bin]! += dv;
+    acc.closedS += dtS;
+    acc.modcodTimeS[m.stairs.index[step] as number]! += dtS;
+    if (rate > acc.peakRateBps) acc.peakRateBps = rate;
+  }
+}
+
+/** Adds the sample at tMs: worst margin over the whole contact, volume over the data span. */
 function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): void {
   acc.samples++;
   if (s.marginDb < acc.worstMarginDb) {
@@ -192,33 +298,14 @@ function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): vo
     acc.worstAtMs = tMs;
     acc.worstElevationDeg = look.elevationDeg;
   }
-  const inData = tMs >= acc.dataStartMs && tMs <= acc.dataEndMs;
-  const rate = inData ? s.rateBps : 0;
-  const modcod = inData ? modcodIndexOf(acc.link, s) : -1;
-  if (rate > acc.peakRateBps) acc.peakRateBps = rate;
-  if (inData && acc.lastMs >= acc.dataStartMs) {
-    const dtS = (tMs - acc.lastMs) / 1000;
-    const dv = 0.5 * (acc.lastRate + rate) * dtS;
-    acc.volumeBits += dv;
-    // the interval goes to the bin of its midpoint (intervals are one step long)
-    const bin = Math.floor((0.5 * (tMs + acc.lastMs) - acc.binStartMs) / VOLUME_BIN_MS);
-    while (acc.bins.length <= bin) acc.bins.push(0);
-    acc.bins[bin]! += dv;
-    const half = 0.5 * dtS;
-    if (acc.lastModcod >= 0) {
-      acc.closedS += half;
-      acc.modcodTimeS[acc.lastModcod]! += half;
-    }
-    if (modcod >= 0) {
-      acc.closedS += half;
-      acc.modcodTimeS[modcod]! += half;
-    }
+  if (tMs < acc.dataStartMs || tMs > acc.dataEndMs) return;
+  const q = acc.model.adaptive ? s.esN0Db - acc.model.qOffsetDb : s.marginDb;
+  if (acc.lastMs >= acc.dataStartMs && tMs > acc.lastMs) {
+    integrateSegment(acc, acc.lastMs, acc.lastQ, acc.lastElevationDeg, tMs, q, look.elevationDeg);
   }
-  if (inData) {
-    acc.lastMs = tMs;
-    acc.lastRate = rate;
-    acc.lastModcod = modcod;
-  }
+  acc.lastMs = tMs;
+  acc.lastQ = q;
+  acc.lastElevationDeg = look.elevationDeg;
 }
 
 export interface LinkRunStats {
@@ -246,21 +333,28 @@ export function integrateContacts(
   const acqMs = settings.acquisitionTimeS * 1000;
 
   const bySpacecraft = new Map<string, Accumulator[]>();
+  const models = new Map<PreparedLink, RateModel>();
   for (const c of contacts) {
     const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
     if (!link) continue;
     const site = geometry.sites[siteIndex.get(c.stationId) ?? -1];
     if (!site) continue;
     const dataStartMs = Math.min(c.aosMs + acqMs, c.losMs);
+    let model = models.get(link);
+    if (!model) {
+      model = rateModelOf(link);
+      models.set(link, model);
+    }
     const acc: Accumulator = {
       contact: c,
       link,
+      model,
       site,
       dataStartMs,
       dataEndMs: c.losMs,
       lastMs: -Infinity,
-      lastRate: 0,
-      lastModcod: -1,
+      lastQ: 0,
+      lastElevationDeg: 0,
       volumeBits: 0,
       closedS: 0,
       worstMarginDb: Infinity,

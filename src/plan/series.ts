@@ -5,8 +5,8 @@
  *
  * The rate follows the volume rule of link.ts: 0 before the data start
  * (AOS + acquisition time) and where the link does not close; so the
- * trapezoid integral of `rateBps` over `tMs` is the contact's volume
- * (to the step's integration error).
+ * integral of `rateBps` over `tMs` is the contact's volume (to the sampling
+ * error of a chart: the series is for drawing, the volume comes from link.ts).
  */
 import { makeSite } from '../geometry/earth.js';
 import { lookFrom, newLook } from '../geometry/topocentric.js';

@@ -44,3 +44,58 @@ export function lowestThresholdModcod(table: readonly ModcodEntry[]): number {
   }
   return best;
 }
+
+/**
+ * The ACM choice as a step function: step k applies from thresholdsDb[k] (inclusive) to
+ * the next threshold, carrying efficiency[k] bits per symbol with table entry index[k].
+ * Built so that, for any q, the last step with thresholdsDb <= q is exactly
+ * bestModcod(table, q, 0): the highest efficiency among entries whose threshold does not
+ * exceed q, ties to the lower threshold. Thresholds and efficiencies ascend.
+ */
+export interface ModcodStaircase {
+  thresholdsDb: Float64Array;
+  efficiency: Float64Array;
+  index: Int32Array;
+}
+
+export function modcodStaircase(table: readonly ModcodEntry[]): ModcodStaircase {
+  const order = table.map((_, i) => i);
+  order.sort((a, b) => {
+    const ea = table[a] as ModcodEntry;
+    const eb = table[b] as ModcodEntry;
+    return ea.esN0ThresholdDb - eb.esN0ThresholdDb || eb.spectralEfficiencyBitsPerSymbol - ea.spectralEfficiencyBitsPerSymbol;
+  });
+  const thr: number[] = [];
+  const eff: number[] = [];
+  const idx: number[] = [];
+  let best = -Infinity;
+  for (const i of order) {
+    const e = table[i] as ModcodEntry;
+    if (e.spectralEfficiencyBitsPerSymbol > best) {
+      best = e.spectralEfficiencyBitsPerSymbol;
+      if (thr.length > 0 && thr[thr.length - 1] === e.esN0ThresholdDb) {
+        // same threshold, higher efficiency: replaces the step
+        eff[eff.length - 1] = best;
+        idx[idx.length - 1] = i;
+      } else {
+        thr.push(e.esN0ThresholdDb);
+        eff.push(best);
+        idx.push(i);
+      }
+    }
+  }
+  return { thresholdsDb: Float64Array.from(thr), efficiency: Float64Array.from(eff), index: Int32Array.from(idx) };
+}
+
+/** The step of `stairs` in force at q (last threshold <= q), or -1 below the first. */
+export function stepAt(stairs: ModcodStaircase, q: number): number {
+  const t = stairs.thresholdsDb;
+  let lo = -1;
+  let hi = t.length;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if ((t[mid] as number) <= q) lo = mid;
+    else hi = mid;
+  }
+  return lo;
+}

@@ -9,7 +9,7 @@ import { CCSDS_TM_CODES, type CcsdsCode } from './ccsds-tm-131.js';
 import { DVBS2_EN302307_1 } from './dvbs2-en302307-1.js';
 import { DVBS2X_EN302307_2 } from './dvbs2x-en302307-2.js';
 
-export { bestModcod, lowestThresholdModcod } from './acm.js';
+export { bestModcod, lowestThresholdModcod, modcodStaircase, stepAt, type ModcodStaircase } from './acm.js';
 export { occupiedBandwidthHz, shannonCapacityBps, shannonMinEbN0Db } from './shannon.js';
 export { CCSDS_TM_CODES, type CcsdsCode } from './ccsds-tm-131.js';
 export { DVBS2_EN302307_1, type Dvbs2Modcod } from './dvbs2-en302307-1.js';
