@@ -65,7 +65,7 @@ function timed<T>(f: () => T): { value: T; ms: number } {
   return { value, ms: performance.now() - t0 };
 }
 
-export function linkBenchmark(spacecraft = 200, stations = 20, days = 7, stepsS: number[] = [1, 10]): void {
+export function linkBenchmark(spacecraft = 200, stations = 20, days = 7, stepsS: number[] = [30, 10]): void {
   const startMs = Date.UTC(2026, 2, 2);
   const span: Span = { startMs, endMs: startMs + days * 86_400_000 };
   const scenario = syntheticScenario(spacecraft, stations, span);
