@@ -214,8 +214,12 @@ interface Accumulator {
   worstAtMs: number;
   worstElevationDeg: number;
   peakRateBps: number;
-  /** Seconds per MODCOD table index (fixed coding: index 0), named only at the end. */
+  /**
+   * Seconds per MODCOD table index (fixed coding: index 0), named only at the end:
+   * modcodTimeS[modcodBase + index], one buffer shared by every contact of the run.
+   */
   modcodTimeS: Float64Array;
+  modcodBase: number;
   samples: number;
   binStartMs: number;
   /** Volume per 15-min bin (fractional while integrating). */
@@ -285,7 +289,7 @@ function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number,
     while (acc.bins.length <= bin) acc.bins.push(0);
     acc.bins[bin]! += dv;
     acc.closedS += dtS;
-    acc.modcodTimeS[m.stairs.index[step] as number]! += dtS;
+    acc.modcodTimeS[acc.modcodBase + (m.stairs.index[step] as number)]! += dtS;
     if (rate > acc.peakRateBps) acc.peakRateBps = rate;
   }
 }
@@ -334,7 +338,11 @@ export function integrateContacts(
 
   const bySpacecraft = new Map<string, Accumulator[]>();
   const models = new Map<PreparedLink, RateModel>();
-  for (const c of contacts) {
+  let modcodStride = 1;
+  for (const l of setup.links.values()) modcodStride = Math.max(modcodStride, l.modcodTable.length);
+  const modcodBuffer = new Float64Array(contacts.length * modcodStride);
+  for (let ci = 0; ci < contacts.length; ci++) {
+    const c = contacts[ci]!;
     const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
     if (!link) continue;
     const site = geometry.sites[siteIndex.get(c.stationId) ?? -1];
@@ -361,7 +369,8 @@ export function integrateContacts(
       worstAtMs: c.aosMs,
       worstElevationDeg: Number.NaN,
       peakRateBps: 0,
-      modcodTimeS: new Float64Array(Math.max(1, link.modcodTable.length)),
+      modcodTimeS: modcodBuffer,
+      modcodBase: ci * modcodStride,
       samples: 0,
       binStartMs: Math.floor(c.aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS,
       bins: [],
@@ -450,9 +459,11 @@ export function wholeBitBins(bins: readonly number[]): { bins: number[]; totalBi
 
 function modcodTimes(acc: Accumulator): Record<string, number> {
   const out: Record<string, number> = {};
-  acc.modcodTimeS.forEach((seconds, i) => {
+  const n = Math.max(1, acc.link.modcodTable.length);
+  for (let i = 0; i < n; i++) {
+    const seconds = acc.modcodTimeS[acc.modcodBase + i] as number;
     if (seconds > 0) out[modcodNameAt(acc.link, i)] = seconds;
-  });
+  }
   return out;
 }
 
