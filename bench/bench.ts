@@ -165,7 +165,7 @@ async function main(): Promise<void> {
   );
   demoBenchmark();
   geometryBenchmark();
-  linkBenchmark();
+  await linkBenchmark();
 }
 
 // Run only when executed directly (link-bench.ts imports the helpers above).

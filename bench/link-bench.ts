@@ -8,6 +8,7 @@
 import { loadScenario } from '../src/scenario/load.js';
 import { demoFiles } from '../src/scenario/paths.js';
 import { runPlan } from '../src/plan/run.js';
+import { runPlanParallel, threadsFor } from '../src/plan/parallel.js';
 import { modcodTable } from '../src/link/modcod/index.js';
 import type { Scenario, Span, Station, Spacecraft } from '../src/scenario/types.js';
 import { syntheticFleet, syntheticStations, peakRssMb } from './bench.js';
@@ -65,7 +66,7 @@ function timed<T>(f: () => T): { value: T; ms: number } {
   return { value, ms: performance.now() - t0 };
 }
 
-export function linkBenchmark(spacecraft = 200, stations = 20, days = 7, stepsS: number[] = [30, 10]): void {
+export async function linkBenchmark(spacecraft = 200, stations = 20, days = 7, stepsS: number[] = [30, 10]): Promise<void> {
   const startMs = Date.UTC(2026, 2, 2);
   const span: Span = { startMs, endMs: startMs + days * 86_400_000 };
   const scenario = syntheticScenario(spacecraft, stations, span);
@@ -83,6 +84,14 @@ export function linkBenchmark(spacecraft = 200, stations = 20, days = 7, stepsS:
         `to geometry (share of run ${((100 * linkMs) / full.ms).toFixed(0)} %), volume ${(volume / 1e12).toFixed(2)} Tbit`,
     );
   }
+  const threads = threadsFor(scenario.spacecraft.length);
+  const t0 = performance.now();
+  const par = await runPlanParallel(scenario, span);
+  const parMs = performance.now() - t0;
+  console.log(
+    `  plan on ${threads} worker thread${threads === 1 ? '' : 's'} (default step): ${(parMs / 1000).toFixed(2)} s, ${par.contacts.length} windows, ` +
+      `${par.stats.linkSamples} link samples`,
+  );
   console.log(`  peak RSS: ${peakRssMb().toFixed(0)} MB`);
 }
 

@@ -5,7 +5,7 @@
  */
 import type { Command } from 'commander';
 import { loadScenario } from '../scenario/load.js';
-import { runPlan } from '../plan/run.js';
+import { runPlanParallel } from '../plan/parallel.js';
 import { marginRows } from '../plan/margin.js';
 import { renderMarginCsv, renderMarginJson, renderMarginTable, type MarginReport } from '../report/margin.js';
 import { writeOutputs } from '../report/write.js';
@@ -18,11 +18,11 @@ export function registerMargin(program: Command, io: CliIo, setExit: SetExit): v
     program
       .command('margin')
       .description('worst-case elevation margin per station and spacecraft, the usable data mask, and the worst margin seen; exit 1 on a failure'),
-  ).action((raw) => {
+  ).action(async (raw) => {
     const opts = readCommonOptions(raw);
     const scenario = loadScenario(opts.files);
     const span = spanFor(opts, scenario, io);
-    const plan = runPlan(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
+    const plan = await runPlanParallel(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
     const report: MarginReport = { span, availabilityPercent: scenario.link.availabilityPercent, rows: marginRows(scenario, plan) };
     const json = renderMarginJson(report);
     const csv = renderMarginCsv(report);

@@ -1,7 +1,7 @@
 /** `passbudget plan`: contact windows, volume per contact, report files under --out. */
 import type { Command } from 'commander';
 import { loadScenario } from '../scenario/load.js';
-import { runPlan } from '../plan/run.js';
+import { runPlanParallel } from '../plan/parallel.js';
 import { renderPlanTable, renderPlanJson, renderPlanCsv } from '../report/plan.js';
 import { writeOutputs } from '../report/write.js';
 import { dailyTotals, spacecraftTotals, type DayMode } from '../plan/daily.js';
@@ -26,13 +26,13 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
     .option('--local-days', "daily totals over each station's local days (its IANA zone) instead of UTC days")
     .option('--schedule', 'deconflict antennas (priority x volume), show only the windows taken, simulate the onboard recorders')
     .option('--one-station-at-a-time', 'with --schedule: a spacecraft downlinks to one station at a time')
-    .action((raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean }) => {
+    .action(async (raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean }) => {
       const opts = readCommonOptions(raw);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
       const scenario = loadScenario(opts.files);
       const span = spanFor(opts, scenario, io);
       const progress = progressLine(io, 'plan');
-      const unscheduled = runPlan(scenario, span, {
+      const unscheduled = await runPlanParallel(scenario, span, {
         ...(opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}),
         onProgress: countHook(progress, 'stage'),
       });

@@ -1,0 +1,86 @@
+/**
+ * The plan pipeline spread over worker threads, one group of spacecraft per thread
+ * (work is independent per spacecraft: DESIGN "Scaling"). The merged result is the
+ * same as runPlan's: contacts in the same order (station, AOS, spacecraft), warnings
+ * deduplicated in the order runPlan gives them, stats summed.
+ * Threads are used only from the compiled program (a worker needs a .js file) and
+ * only when there are at least MIN_SPACECRAFT_PER_THREAD spacecraft per thread;
+ * otherwise this is runPlan.
+ */
+import { Worker } from 'node:worker_threads';
+import { availableParallelism } from 'node:os';
+import { runPlan, planResult, type PlanOptions } from './run.js';
+import type { Scenario, Span } from '../scenario/types.js';
+import type { PlanResult } from './types.js';
+
+export const MIN_SPACECRAFT_PER_THREAD = 4;
+
+/** Threads worth starting for this many spacecraft on this machine. */
+export function threadsFor(spacecraftCount: number, maxThreads = availableParallelism()): number {
+  return Math.max(1, Math.min(maxThreads, Math.floor(spacecraftCount / MIN_SPACECRAFT_PER_THREAD)));
+}
+
+function workerUrl(): URL | undefined {
+  const url = new URL('./plan-worker.js', import.meta.url);
+  return import.meta.url.endsWith('.js') ? url : undefined;
+}
+
+export async function runPlanParallel(scenario: Scenario, span: Span, opts: PlanOptions = {}, maxThreads?: number): Promise<PlanResult> {
+  const threads = threadsFor(scenario.spacecraft.length, maxThreads);
+  const url = workerUrl();
+  if (threads <= 1 || url === undefined) return runPlan(scenario, span, opts);
+  const { onProgress, ...plain } = opts;
+  const groups: Scenario[] = [];
+  for (let g = 0; g < threads; g++) {
+    groups.push({ ...scenario, spacecraft: scenario.spacecraft.filter((_, i) => i % threads === g) });
+  }
+  let done = 0;
+  onProgress?.(0, threads, 'threads');
+  const parts = await Promise.all(
+    groups.map(
+      (group) =>
+        new Promise<PlanResult>((resolve, reject) => {
+          const w = new Worker(url, { workerData: { scenario: group, span, opts: plain } });
+          w.once('message', (r: PlanResult) => {
+            onProgress?.(++done, threads, 'threads');
+            resolve(r);
+          });
+          w.once('error', reject);
+          w.once('exit', (code) => {
+            if (code !== 0) reject(new Error(`plan worker exited with code ${code}`));
+          });
+        }),
+    ),
+  );
+  return mergePlans(scenario, span, parts);
+}
+
+/** Merges per-group results into the single-thread order. */
+export function mergePlans(scenario: Scenario, span: Span, parts: PlanResult[]): PlanResult {
+  const stationOrder = new Map(scenario.stations.map((s, i) => [s.id, i]));
+  const scOrder = new Map(scenario.spacecraft.map((s, i) => [s.id, i]));
+  const contacts = parts.flatMap((p) => p.contacts);
+  contacts.sort(
+    (a, b) =>
+      (stationOrder.get(a.stationId) ?? 0) - (stationOrder.get(b.stationId) ?? 0) ||
+      a.aosMs - b.aosMs ||
+      (scOrder.get(a.spacecraftId) ?? 0) - (scOrder.get(b.spacecraftId) ?? 0),
+  );
+  // runPlan's order: per-spacecraft warnings (spacecraft order), then link warnings (station order)
+  const scWarn: string[][] = scenario.spacecraft.map(() => []);
+  const other: string[] = [];
+  for (const p of parts) {
+    for (const w of p.warnings) {
+      const k = scOrder.get(w.slice(0, w.indexOf(':')));
+      if (k !== undefined) scWarn[k]!.push(w);
+      else if (!other.includes(w)) other.push(w);
+    }
+  }
+  other.sort((a, b) => (stationOrder.get(a.slice(0, a.indexOf(':'))) ?? 0) - (stationOrder.get(b.slice(0, b.indexOf(':'))) ?? 0));
+  const stats = { propagations: 0, linkSamples: 0 };
+  for (const p of parts) {
+    stats.propagations += p.stats.propagations;
+    stats.linkSamples += p.stats.linkSamples;
+  }
+  return planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, [...scWarn.flat(), ...other], stats);
+}
