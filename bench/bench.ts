@@ -7,8 +7,7 @@
  *
  * Run: npm run bench. Exported pieces let later figures (demo week, link engine) be added.
  */
-import { resolve } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { isEntryModule } from '../src/cli/entry.js';
 import { findPassesBruteForce } from '../src/geometry/bruteforce.js';
 import { makeSite } from '../src/geometry/earth.js';
 import { findPasses } from '../src/geometry/passes.js';
@@ -169,4 +168,4 @@ async function main(): Promise<void> {
 }
 
 // Run only when executed directly (link-bench.ts imports the helpers above).
-if (process.argv[1] !== undefined && fileURLToPath(import.meta.url) === resolve(process.argv[1])) void main();
+if (isEntryModule(import.meta.url)) void main();

@@ -8,8 +8,8 @@
  * (defaults 1 s and /tmp/passbudget-trace-bench.csv; the file is removed afterwards
  * unless an outFile is given). Or call benchTrace() from bench/bench.ts.
  */
-import { statSync, rmSync, realpathSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { isEntryModule } from '../src/cli/entry.js';
+import { statSync, rmSync } from 'node:fs';
 import { loadScenario } from '../src/scenario/load.js';
 import { demoFiles } from '../src/scenario/paths.js';
 import { prepareTrace, traceRows } from '../src/plan/trace.js';
@@ -60,17 +60,8 @@ export async function benchTrace(stepS = 1, outFile = '/tmp/passbudget-trace-ben
   };
 }
 
-function isMain(): boolean {
-  const entry = process.argv[1];
-  if (entry === undefined) return false;
-  try {
-    return realpathSync(entry) === realpathSync(fileURLToPath(import.meta.url));
-  } catch {
-    return false;
-  }
-}
 
-if (isMain()) {
+if (isEntryModule(import.meta.url)) {
   const stepS = Number(process.argv[2] ?? '1');
   const outFile = process.argv[3];
   const r = await benchTrace(stepS, outFile ?? '/tmp/passbudget-trace-bench.csv', outFile !== undefined);

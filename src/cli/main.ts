@@ -4,9 +4,8 @@
  * renderer. Holds no physics. Exit codes: 0 ok, 1 a requirement failed,
  * 2 bad input (one line per problem, never a stack trace).
  */
+import { isEntryModule } from './entry.js';
 import { Command, CommanderError } from 'commander';
-import { realpathSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { ScenarioError, ModelRangeError, UsageError } from '../errors.js';
 import { processIo, type CliIo } from './io.js';
 import { registerCommands } from './commands.js';
@@ -53,17 +52,8 @@ function handleError(err: unknown, io: CliIo): number {
   throw err;
 }
 
-function isMain(): boolean {
-  const entry = process.argv[1];
-  if (entry === undefined) return false;
-  try {
-    return realpathSync(entry) === realpathSync(fileURLToPath(import.meta.url));
-  } catch {
-    return false;
-  }
-}
 
-if (isMain()) {
+if (isEntryModule(import.meta.url)) {
   // Interrupted: remove the temp files being written; no target was renamed yet.
   for (const [signal, code] of [['SIGINT', 130], ['SIGTERM', 143]] as const) {
     process.on(signal, () => {
