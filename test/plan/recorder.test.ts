@@ -10,6 +10,7 @@ import { scheduleContacts } from '../../src/plan/schedule.js';
 import { cumulativeDrainBits, drainProfile, simulateRecorder, simulateRecorders, type RecorderTrack } from '../../src/plan/recorder.js';
 import { VOLUME_BIN_MS, type Contact } from '../../src/plan/types.js';
 import { spacecraftSchema } from '../../src/scenario/schema.js';
+import { mulberry32 } from '../fixtures/prng.js';
 
 const S = 1000;
 const HOUR = { startMs: 0, endMs: 3600 * S };
@@ -115,16 +116,6 @@ describe('recorder solved by hand', () => {
   });
 });
 
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 describe('mass balance to the bit', () => {
   it('holds on 100 seeded random cases (odd rates, duty cycles, overlapping contacts, odd steps)', () => {

@@ -10,20 +10,10 @@ import { describe, expect, it } from 'vitest';
 import { maxDepth, scheduleAntennas, scheduleContacts, scheduleOneAntenna, scheduledPlan, type Job } from '../../src/plan/schedule.js';
 import type { Contact, PlanResult } from '../../src/plan/types.js';
 import type { Station } from '../../src/scenario/types.js';
+import { mulberry32 } from '../fixtures/prng.js';
 
 const MIN = 60_000;
 
-/** Deterministic PRNG (mulberry32), so every run draws the same cases. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function bruteForce(jobs: Job[], k: number, setupMs: number): number {
   let best = 0;
