@@ -45,3 +45,74 @@ export class UsageError extends Error {
     this.name = 'UsageError';
   }
 }
+
+/**
+ * The output folder cannot take the run's files (it is a file, sits under a file,
+ * is not writable, the disk is full): one line naming the path and what is wrong,
+ * exit 2. Nothing was replaced when this is thrown.
+ */
+export class OutputError extends Error {
+  constructor(
+    readonly path: string,
+    readonly reason: string,
+  ) {
+    super(`${path}: ${reason}`);
+    this.name = 'OutputError';
+  }
+}
+
+/** Most problems printed for one run; the rest are counted ("... and N more"). */
+export const MAX_PROBLEMS_PRINTED = 50;
+
+/** The lines a ScenarioError prints: at most MAX_PROBLEMS_PRINTED, then a count of the rest. */
+export function problemLines(problems: readonly Problem[], max = MAX_PROBLEMS_PRINTED): string[] {
+  const lines: string[] = [];
+  for (let i = 0; i < problems.length && i < max; i++) lines.push(formatProblem(problems[i]!));
+  if (problems.length > max) lines.push(`... and ${problems.length - max} more problems (${problems.length} in all; the first ${max} are shown)`);
+  return lines;
+}
+
+/**
+ * Appends `more` to `into` without spreading it into arguments (a spread of
+ * 100,000 problems overflows the call stack).
+ */
+export function appendAll<T>(into: T[], more: readonly T[]): void {
+  for (let i = 0; i < more.length; i++) into.push(more[i]!);
+}
+
+/** A user's error as plain data, to cross a worker-thread boundary (structured clone keeps no class). */
+export type SerializedError =
+  | { kind: 'ScenarioError'; problems: Problem[] }
+  | { kind: 'ModelRangeError'; model: string; field: string; value: number; valid: string }
+  | { kind: 'UsageError'; message: string }
+  | { kind: 'OutputError'; path: string; reason: string }
+  | { kind: 'other'; name: string; message: string; stack?: string };
+
+export function serializeError(err: unknown): SerializedError {
+  if (err instanceof ScenarioError) return { kind: 'ScenarioError', problems: err.problems };
+  if (err instanceof ModelRangeError) return { kind: 'ModelRangeError', model: err.model, field: err.field, value: err.value, valid: err.valid };
+  if (err instanceof UsageError) return { kind: 'UsageError', message: err.message };
+  if (err instanceof OutputError) return { kind: 'OutputError', path: err.path, reason: err.reason };
+  const e = err instanceof Error ? err : new Error(String(err));
+  return { kind: 'other', name: e.name, message: e.message, ...(e.stack !== undefined ? { stack: e.stack } : {}) };
+}
+
+/** The error serializeError described, as its own class again (a bug stays a plain Error with its stack). */
+export function reviveError(s: SerializedError): Error {
+  switch (s.kind) {
+    case 'ScenarioError':
+      return new ScenarioError(s.problems);
+    case 'ModelRangeError':
+      return new ModelRangeError(s.model, s.field, s.value, s.valid);
+    case 'UsageError':
+      return new UsageError(s.message);
+    case 'OutputError':
+      return new OutputError(s.path, s.reason);
+    case 'other': {
+      const e = new Error(s.message);
+      e.name = s.name;
+      if (s.stack !== undefined) e.stack = s.stack;
+      return e;
+    }
+  }
+}

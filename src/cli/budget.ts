@@ -7,12 +7,11 @@ import { singleBudget, type SingleBudgetRequest } from '../plan/single.js';
 import { renderBudgetTable, renderBudgetJson } from '../report/budget.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
+import { decimalFlag } from './options.js';
 
 function num(flag: string, text: string | undefined, min: number, max: number): number | undefined {
-  if (text === undefined) return undefined;
-  const v = Number(text);
-  if (!Number.isFinite(v) || v < min || v > max) throw new UsageError(`${flag}: "${text}" must be a number in ${min}..${max}`);
-  return v;
+  // decimal only: "0x10" or " " is not a number here
+  return decimalFlag(flag, text, min, max, `a number in ${min}..${max}`);
 }
 
 interface Raw {

@@ -6,10 +6,11 @@
  */
 import { isEntryModule } from './entry.js';
 import { Command, CommanderError } from 'commander';
-import { ScenarioError, ModelRangeError, UsageError } from '../errors.js';
+import { ScenarioError, ModelRangeError, UsageError, OutputError, problemLines } from '../errors.js';
 import { processIo, type CliIo } from './io.js';
 import { registerCommands } from './commands.js';
-import { removeOpenTemps } from '../report/write.js';
+import { installStopHandlers } from './signals.js';
+import { packageVersion } from '../scenario/paths.js';
 
 export const EXIT_OK = 0;
 export const EXIT_REQUIREMENT_FAILED = 1;
@@ -21,6 +22,7 @@ export async function run(argv: string[], io: CliIo = processIo): Promise<number
   program
     .name('passbudget')
     .description('Contact windows and a downlink budget at every second of every pass, for a week of spacecraft contacts.')
+    .version(packageVersion(), '-V, --version', 'print the version of passbudget')
     .exitOverride()
     .configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) })
     .showHelpAfterError(false);
@@ -42,10 +44,10 @@ function handleError(err: unknown, io: CliIo): number {
     return EXIT_BAD_INPUT;
   }
   if (err instanceof ScenarioError) {
-    for (const line of err.message.split('\n')) io.err(`error: ${line}\n`);
+    for (const line of problemLines(err.problems)) io.err(`error: ${line}\n`);
     return EXIT_BAD_INPUT;
   }
-  if (err instanceof ModelRangeError || err instanceof UsageError) {
+  if (err instanceof ModelRangeError || err instanceof UsageError || err instanceof OutputError) {
     io.err(`error: ${err.message}\n`);
     return EXIT_BAD_INPUT;
   }
@@ -54,13 +56,8 @@ function handleError(err: unknown, io: CliIo): number {
 
 
 if (isEntryModule(import.meta.url)) {
-  // Interrupted: remove the temp files being written; no target was renamed yet.
-  for (const [signal, code] of [['SIGINT', 130], ['SIGTERM', 143]] as const) {
-    process.on(signal, () => {
-      removeOpenTemps();
-      process.exit(code);
-    });
-  }
+  // Interrupted or a closed stdout: stop now, nothing new written (src/cli/signals.ts).
+  installStopHandlers();
   run(process.argv.slice(2)).then(
     (code) => {
       process.exitCode = code;

@@ -9,7 +9,7 @@ import { runPlanParallel } from '../plan/parallel.js';
 import { marginRows } from '../plan/margin.js';
 import { renderMarginCsv, renderMarginJson, renderMarginTable, type MarginReport } from '../report/margin.js';
 import { writeOutputs } from '../report/write.js';
-import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
@@ -20,6 +20,7 @@ export function registerMargin(program: Command, io: CliIo, setExit: SetExit): v
       .description('worst-case elevation margin per station and spacecraft, the usable data mask, and the worst margin seen; exit 1 on a failure'),
   ).action(async (raw) => {
     const opts = readCommonOptions(raw);
+    prepareOutput(opts, io, ['margin.json', 'margin.csv']);
     const scenario = loadScenario(opts.files);
     const span = spanFor(opts, scenario, io);
     const plan = await runPlanParallel(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
@@ -31,7 +32,7 @@ export function registerMargin(program: Command, io: CliIo, setExit: SetExit): v
     else io.out(renderMarginTable(report));
     for (const w of plan.warnings) io.err(`warning: ${w}\n`);
     if (opts.write) {
-      const written = writeOutputs(opts.outDir, [
+      const written = await writeOutputs(opts.outDir, [
         { name: 'margin.json', content: json },
         { name: 'margin.csv', content: csv },
       ]);

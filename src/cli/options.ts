@@ -6,10 +6,32 @@ import { Command, Option } from 'commander';
 import { IANAZone } from 'luxon';
 import { UsageError } from '../errors.js';
 import { demoFiles } from '../scenario/paths.js';
-import { parseInstant, type ScenarioFiles } from '../scenario/load.js';
+import { INSTANT_RANGE_TEXT, parseInstant, type ScenarioFiles } from '../scenario/load.js';
 import { parseDurationS } from '../time/duration.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import type { CliIo } from './io.js';
+import { checkOutputDir } from '../report/outdir.js';
+
+/**
+ * A plain decimal number as a flag value: digits, an optional point and exponent
+ * ("16", "0.5", "1e3"); no hex ("0x10"), binary, blanks or Infinity.
+ */
+export function decimalFlag(flag: string, text: string | undefined, min: number, max: number, valid = `a decimal number in ${min}..${max}`): number | undefined {
+  if (text === undefined) return undefined;
+  const t = text.trim();
+  const v = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/.test(t) ? Number(t) : Number.NaN;
+  if (!Number.isFinite(v) || v < min || v > max) throw new UsageError(`${flag}: ${JSON.stringify(text)} must be ${valid}`);
+  return v;
+}
+
+/**
+ * Checks --out before any work (src/report/outdir.ts): one line and exit 2 when
+ * it cannot take the files `names`; removes stale temp files of stopped runs.
+ * Nothing to check with --no-write.
+ */
+export function prepareOutput(opts: CommonOptions, io: CliIo, names: readonly string[] = []): void {
+  if (opts.write) checkOutputDir(opts.outDir, { names, note: (line) => io.err(line) });
+}
 
 export type Format = 'table' | 'json' | 'csv';
 
@@ -59,12 +81,12 @@ export function readCommonOptions(raw: RawOptions): CommonOptions {
   };
   if (raw.from !== undefined) {
     const t = parseInstant(raw.from);
-    if (t === undefined) throw new UsageError(`--from: "${raw.from}" is not an ISO 8601 time (e.g. 2026-03-05T00:00:00Z)`);
+    if (t === undefined) throw new UsageError(`--from: "${raw.from}" is not an ISO 8601 time from ${INSTANT_RANGE_TEXT} (e.g. 2026-03-05T00:00:00Z)`);
     opts.fromMs = t;
   }
   if (raw.days !== undefined) {
-    const d = Number(raw.days);
-    if (!Number.isFinite(d) || d <= 0 || d > 366) throw new UsageError(`--days: "${raw.days}" must be a number of days in (0, 366]`);
+    const d = decimalFlag('--days', raw.days, 0, 366, 'a number of days in (0, 366]');
+    if (d === undefined || d <= 0) throw new UsageError(`--days: "${raw.days}" must be a number of days in (0, 366]`);
     opts.days = d;
   }
   if (raw.step !== undefined) {

@@ -15,9 +15,12 @@ import { renderScheduleCsv, renderScheduleTable, scheduleJson } from '../report/
 import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable } from '../report/recorder.js';
 import { marginRows } from '../plan/margin.js';
 import { countHook, progressLine } from './progress.js';
-import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
+
+/** Fixed names plan writes (checked before the work: none may be a folder). */
+const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'daily.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg'];
 
 export function registerPlan(program: Command, io: CliIo, setExit: SetExit): void {
   addCommonOptions(
@@ -28,6 +31,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
     .option('--one-station-at-a-time', 'with --schedule: a spacecraft downlinks to one station at a time')
     .action(async (raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean }) => {
       const opts = readCommonOptions(raw);
+      prepareOutput(opts, io, PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
       const scenario = loadScenario(opts.files);
       const span = spanFor(opts, scenario, io);
@@ -55,7 +59,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone) + '\n' + renderRecorderTable(recorders));
       for (const w of plan.warnings) io.err(`warning: ${w}\n`);
       if (opts.write) {
-        const written = writeOutputs(opts.outDir, [
+        const written = await writeOutputs(opts.outDir, [
           { name: 'plan.json', content: json },
           { name: 'contacts.csv', content: csv },
           { name: 'daily.csv', content: renderDailyCsv(daily) },

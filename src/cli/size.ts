@@ -13,15 +13,13 @@ import { loadScenario } from '../scenario/load.js';
 import { DEFAULT_SIZING_LINK_STEP_S, prepareSizingContext, sizeForWeek, sizePowerAtGeometry, type SolveFor, type VolumeBasis } from '../plan/sizing.js';
 import { pointSizingJson, renderPointSizingText, renderWeekSizingText, weekSizingJson } from '../report/sizing.js';
 import { writeOutputs } from '../report/write.js';
-import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, decimalFlag, prepareOutput, readCommonOptions, spanFor } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
 function num(flag: string, text: string | undefined, min: number, max: number): number | undefined {
-  if (text === undefined) return undefined;
-  const v = Number(text);
-  if (!Number.isFinite(v) || v < min || v > max) throw new UsageError(`${flag}: "${text}" must be a number in ${min}..${max}`);
-  return v;
+  // decimal only: "0x10" or " " is not a number here
+  return decimalFlag(flag, text, min, max, `a number in ${min}..${max}`);
 }
 
 interface SizeRaw {
@@ -57,9 +55,10 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
     .option('--elevation <deg>', 'one-geometry mode: elevation, deg')
     .option('--range-km <km>', 'one-geometry mode: slant range, km')
     .option('--target-rate-bps <R>', 'one-geometry mode: information rate to carry, bit/s')
-    .action((raw: Parameters<typeof readCommonOptions>[0] & SizeRaw) => {
+    .action(async (raw: Parameters<typeof readCommonOptions>[0] & SizeRaw) => {
       const opts = readCommonOptions(raw);
       if (opts.format === 'csv') throw new UsageError('--format: size prints table or json');
+      prepareOutput(opts, io, ['sizing.json']);
       const scenario = loadScenario(opts.files);
       const availability = num('--availability', raw.availability, 90, 99.999);
       if (availability !== undefined) scenario.link = { ...scenario.link, availabilityPercent: availability };
@@ -100,7 +99,7 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
       }
       io.out(opts.format === 'json' ? json : text);
       if (opts.write) {
-        const written = writeOutputs(opts.outDir, [{ name: 'sizing.json', content: json }]);
+        const written = await writeOutputs(opts.outDir, [{ name: 'sizing.json', content: json }]);
         if (opts.format === 'table') io.out(`\nwrote ${written.join(', ')}\n`);
       }
       // 1: the target cannot be reached (EXIT_REQUIREMENT_FAILED)

@@ -11,7 +11,7 @@ import { UsageError } from '../errors.js';
 import { loadScenario } from '../scenario/load.js';
 import { DEFAULT_TRACE_STEP_S, prepareTrace, traceRows, traceSelectionProblems, type TraceOptions } from '../plan/trace.js';
 import { streamTraceCsv, traceTimeDecimals, writeTraceFile } from '../report/trace.js';
-import { addCommonOptions, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
 import { processIo, type CliIo } from './io.js';
 import { progressLine } from './progress.js';
 import type { SetExit } from './commands.js';
@@ -60,6 +60,7 @@ export function registerTrace(program: Command, io: CliIo, setExit: SetExit): vo
     const opts = readCommonOptions(raw);
     if (opts.format === 'json') throw new UsageError('--format: trace writes CSV only (use --format csv for stdout)');
     if (opts.zone !== undefined) throw new UsageError('--zone: trace times are always UTC (column time_utc)');
+    if (opts.format !== 'csv') prepareOutput(opts, io, ['trace.csv']);
     const scenario = loadScenario(opts.files);
     const span = spanFor(opts, scenario, io);
     const traceOpts: TraceOptions = { stepS: opts.stepS ?? DEFAULT_TRACE_STEP_S, inContactOnly: raw.inContact === true };

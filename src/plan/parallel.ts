@@ -3,15 +3,31 @@
  * (work is independent per spacecraft: DESIGN "Scaling"). The merged result is the
  * same as runPlan's: contacts in the same order (station, AOS, spacecraft), warnings
  * deduplicated in the order runPlan gives them, stats summed.
- * Threads are used only from the compiled program (a worker needs a .js file) and
- * only when there are at least MIN_SPACECRAFT_PER_THREAD spacecraft per thread;
- * otherwise this is runPlan.
+ * Threads are used only from the compiled program (a worker needs a .js file), one
+ * per MIN_SPACECRAFT_PER_THREAD spacecraft; from the compiled program even a
+ * small fleet runs on one worker, so the main thread stays free to act on a
+ * signal (Ctrl-C stops the run at once: src/cli/signals.ts). Errors come back
+ * as data and are re-raised as their class (ScenarioError, ModelRangeError ...).
+ * Elsewhere (tests on the sources) this is runPlan.
  */
 import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { runPlan, planResult, type PlanOptions } from './run.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import type { PlanResult } from './types.js';
+import { reviveError, type SerializedError } from '../errors.js';
+
+/** What a plan worker posts back: its result, or its error as data. */
+export type WorkerReply = { ok: true; result: PlanResult } | { ok: false; error: SerializedError };
+
+/** Workers running now (terminated together when one fails). */
+const running = new Set<Worker>();
+
+/** Stops every plan worker still running (a failed group, or an interrupted run). */
+export function terminateWorkers(): void {
+  for (const w of running) void w.terminate();
+  running.clear();
+}
 
 export const MIN_SPACECRAFT_PER_THREAD = 4;
 
@@ -28,7 +44,7 @@ function workerUrl(): URL | undefined {
 export async function runPlanParallel(scenario: Scenario, span: Span, opts: PlanOptions = {}, maxThreads?: number): Promise<PlanResult> {
   const threads = threadsFor(scenario.spacecraft.length, maxThreads);
   const url = workerUrl();
-  if (threads <= 1 || url === undefined) return runPlan(scenario, span, opts);
+  if (url === undefined) return runPlan(scenario, span, opts);
   const { onProgress, ...plain } = opts;
   const groups: Scenario[] = [];
   for (let g = 0; g < threads; g++) {
@@ -36,22 +52,34 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
   }
   let done = 0;
   onProgress?.(0, threads, 'threads');
-  const parts = await Promise.all(
-    groups.map(
-      (group) =>
-        new Promise<PlanResult>((resolve, reject) => {
-          const w = new Worker(url, { workerData: { scenario: group, span, opts: plain } });
-          w.once('message', (r: PlanResult) => {
-            onProgress?.(++done, threads, 'threads');
-            resolve(r);
-          });
-          w.once('error', reject);
-          w.once('exit', (code) => {
-            if (code !== 0) reject(new Error(`plan worker exited with code ${code}`));
-          });
-        }),
-    ),
-  );
+  let parts: PlanResult[];
+  try {
+    parts = await Promise.all(
+      groups.map(
+        (group) =>
+          new Promise<PlanResult>((resolve, reject) => {
+            const w = new Worker(url, { workerData: { scenario: group, span, opts: plain } });
+            running.add(w);
+            w.once('message', (r: WorkerReply) => {
+              if (!r.ok) {
+                reject(reviveError(r.error));
+                return;
+              }
+              onProgress?.(++done, threads, 'threads');
+              resolve(r.result);
+            });
+            w.once('error', reject);
+            w.once('exit', (code) => {
+              running.delete(w);
+              if (code !== 0) reject(new Error(`plan worker exited with code ${code}`));
+            });
+          }),
+      ),
+    );
+  } catch (err) {
+    terminateWorkers(); // the first error wins; the other groups' work is moot
+    throw err;
+  }
   return mergePlans(scenario, span, parts);
 }
 

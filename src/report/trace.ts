@@ -165,7 +165,9 @@ export async function writeTraceFile(path: string, trace: PreparedTrace, rows: I
     const stats = await streamTraceCsv(rows, traceTimeDecimals(trace.span.startMs, trace.stepMs), (chunk) => out.write(chunk));
     return { ...stats, path: await out.commit() };
   } catch (err) {
+    // a failed write (a full disk) surfaces here as the pipeline's abort: say what failed
+    const failure = out.failure();
     out.abort();
-    throw err;
+    throw failure ?? err;
   }
 }

@@ -70,7 +70,7 @@ function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraf
   if (doc.window) {
     const from = parseInstant(doc.window.from);
     if (from === undefined) {
-      problems.push({ file, path: 'window.from', message: `${JSON.stringify(doc.window.from)} is not an ISO 8601 time (e.g. "2026-03-05T00:00:00Z")` });
+      problems.push({ file, path: 'window.from', message: `${JSON.stringify(doc.window.from)} is not an ISO 8601 time from ${INSTANT_RANGE_TEXT} (e.g. "2026-03-05T00:00:00Z")` });
     } else {
       span = { startMs: from, endMs: from + doc.window.days * 86_400_000 };
     }
@@ -87,11 +87,23 @@ function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraf
   };
 }
 
-/** ISO 8601 instant to epoch ms; a time without a zone is UTC. */
+/**
+ * Instants the program accepts: from the first element sets (1957) to the end of
+ * 2099 (TLE epoch years run 1957..2056; a window far beyond any element set is
+ * refused by the element-set age limit anyway). Bounding dates here keeps every
+ * later date computation on valid dates.
+ */
+export const MIN_INSTANT_MS = Date.UTC(1957, 0, 1);
+export const MAX_INSTANT_MS = Date.UTC(2100, 0, 1);
+export const INSTANT_RANGE_TEXT = '1957-01-01 to 2099-12-31';
+
+/** ISO 8601 instant to epoch ms; a time without a zone is UTC; only 1957..2099. */
 export function parseInstant(text: string): number | undefined {
   const dt = DateTime.fromISO(text, { zone: 'utc', setZone: true });
   // Real UTC offsets run from -12:00 to +14:00.
-  return dt.isValid && dt.offset >= -12 * 60 && dt.offset <= 14 * 60 ? dt.toMillis() : undefined;
+  if (!dt.isValid || dt.offset < -12 * 60 || dt.offset > 14 * 60) return undefined;
+  const ms = dt.toMillis();
+  return ms >= MIN_INSTANT_MS && ms < MAX_INSTANT_MS ? ms : undefined;
 }
 
 function checkUnique(ids: string[], file: string, path: string, problems: Problem[]): void {

@@ -1,5 +1,5 @@
 /** Where the bundled demo scenario lives, whether run from src/ or dist/. */
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -18,4 +18,10 @@ export function demoFiles(): { spacecraftFile: string; networkFile: string } {
     spacecraftFile: join(root, 'ephemerides', 'demo-fleet.json'),
     networkFile: join(root, 'stations', 'demo-network.yaml'),
   };
+}
+
+/** The version in package.json (for --version). */
+export function packageVersion(): string {
+  const pkg = JSON.parse(readFileSync(join(packageRoot(), 'package.json'), 'utf8')) as { version?: unknown };
+  return typeof pkg.version === 'string' ? pkg.version : 'unknown';
 }
