@@ -2,6 +2,8 @@
 import type { Command } from 'commander';
 import { loadScenario } from '../scenario/load.js';
 import { demoFiles } from '../scenario/paths.js';
+import { ScenarioError } from '../errors.js';
+import { preflight } from '../plan/preflight.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
@@ -15,6 +17,10 @@ export function registerCheck(program: Command, io: CliIo, setExit: SetExit): vo
       const demo = demoFiles();
       const files = { spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile };
       const scenario = loadScenario(files); // throws ScenarioError with every problem
+      // the model-range checks plan runs, for every radio at every station, and plan's warnings
+      const deeper = preflight(scenario, scenario.span);
+      if (deeper.problems.length > 0) throw new ScenarioError(deeper.problems);
+      for (const w of deeper.warnings) io.err(`warning: ${w}\n`);
       const sets = scenario.spacecraft.reduce((n, s) => n + (s.orbit.kind === 'elements' ? s.orbit.sets.length : 0), 0);
       const radios = scenario.spacecraft.reduce((n, s) => n + s.radios.length, 0);
       io.out(

@@ -5,6 +5,7 @@
  */
 import type { Command } from 'commander';
 import { loadScenario } from '../scenario/load.js';
+import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
 import { marginRows } from '../plan/margin.js';
 import { renderMarginCsv, renderMarginJson, renderMarginTable, type MarginReport } from '../report/margin.js';
@@ -23,7 +24,8 @@ export function registerMargin(program: Command, io: CliIo, setExit: SetExit): v
     prepareOutput(opts, io, ['margin.json', 'margin.csv']);
     const scenario = loadScenario(opts.files);
     const span = spanFor(opts, scenario, io);
-    const plan = await runPlanParallel(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {});
+    assertPreflight(scenario, span); // file and field of a model-range problem, before any work
+    const plan = await withNamedProblems(scenario, span, () => runPlanParallel(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}));
     const report: MarginReport = { span, availabilityPercent: scenario.link.availabilityPercent, rows: marginRows(scenario, plan) };
     const json = renderMarginJson(report);
     const csv = renderMarginCsv(report);

@@ -1,6 +1,7 @@
 /** `passbudget plan`: contact windows, volume per contact, report files under --out. */
 import type { Command } from 'commander';
 import { loadScenario } from '../scenario/load.js';
+import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
 import { renderPlanTable, renderPlanJson, renderPlanCsv } from '../report/plan.js';
 import { writeOutputs } from '../report/write.js';
@@ -35,11 +36,14 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
       const scenario = loadScenario(opts.files);
       const span = spanFor(opts, scenario, io);
+      assertPreflight(scenario, span); // file and field of a model-range problem, before any work
       const progress = progressLine(io, 'plan');
-      const unscheduled = await runPlanParallel(scenario, span, {
-        ...(opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}),
-        onProgress: countHook(progress, 'stage'),
-      });
+      const unscheduled = await withNamedProblems(scenario, span, () =>
+        runPlanParallel(scenario, span, {
+          ...(opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}),
+          onProgress: countHook(progress, 'stage'),
+        }),
+      );
       progress.end();
       const oneStation = Boolean(raw.oneStationAtATime);
       const schedule = raw.schedule || oneStation ? scheduleContacts(unscheduled, scenario.stations, scenario.spacecraft, { oneStationAtATime: oneStation }) : undefined;

@@ -10,6 +10,7 @@
 import { Option, type Command } from 'commander';
 import { UsageError } from '../errors.js';
 import { loadScenario } from '../scenario/load.js';
+import { assertPreflight } from '../plan/preflight.js';
 import { DEFAULT_SIZING_LINK_STEP_S, prepareSizingContext, sizeForWeek, sizePowerAtGeometry, type SolveFor, type VolumeBasis } from '../plan/sizing.js';
 import { pointSizingJson, renderPointSizingText, renderWeekSizingText, weekSizingJson } from '../report/sizing.js';
 import { writeOutputs } from '../report/write.js';
@@ -81,6 +82,7 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
         reached = res.requiredPowerDbw !== null;
       } else if (target !== undefined) {
         const span = spanFor(opts, scenario, io);
+        assertPreflight(scenario, span);
         const ctx = prepareSizingContext(scenario, span, opts.stepS ?? DEFAULT_SIZING_LINK_STEP_S);
         const res = sizeForWeek(ctx, {
           spacecraftId: raw.spacecraftId,

@@ -9,6 +9,7 @@ import { join } from 'node:path';
 import type { Command } from 'commander';
 import { UsageError } from '../errors.js';
 import { loadScenario } from '../scenario/load.js';
+import { assertPreflight } from '../plan/preflight.js';
 import { DEFAULT_TRACE_STEP_S, prepareTrace, traceRows, traceSelectionProblems, type TraceOptions } from '../plan/trace.js';
 import { streamTraceCsv, traceTimeDecimals, writeTraceFile } from '../report/trace.js';
 import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
@@ -63,6 +64,7 @@ export function registerTrace(program: Command, io: CliIo, setExit: SetExit): vo
     if (opts.format !== 'csv') prepareOutput(opts, io, ['trace.csv']);
     const scenario = loadScenario(opts.files);
     const span = spanFor(opts, scenario, io);
+    assertPreflight(scenario, span); // file and field of a model-range problem, before any work
     const traceOpts: TraceOptions = { stepS: opts.stepS ?? DEFAULT_TRACE_STEP_S, inContactOnly: raw.inContact === true };
     if (typeof raw.spacecraftId === 'string') traceOpts.spacecraftId = raw.spacecraftId;
     if (typeof raw.stationId === 'string') traceOpts.stationId = raw.stationId;

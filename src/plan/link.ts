@@ -108,7 +108,8 @@ export function prepareRadioAtStation(
   }
 }
 
-function prepareRadioAtStationUnnamed(
+/** prepareRadioAtStation without naming: a model's ModelRangeError as thrown (src/plan/preflight.ts names it). */
+export function prepareRadioAtStationUnnamed(
   radio: Radio,
   station: Station,
   site: Site,

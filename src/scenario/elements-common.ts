@@ -11,6 +11,9 @@
  * are from memory (0 = SGP4/SDP4 as distributed, 4 = SGP4-XP).
  */
 
+import { WGS84_EQUATORIAL_RADIUS_KM, WGS84_GM_KM3_S2 } from '../geometry/earth.js';
+import type { ElementSet } from './types.js';
+
 export const MS_PER_DAY = 86_400_000;
 export const US_PER_DAY = 86_400_000_000;
 
@@ -130,3 +133,70 @@ export function ephemerisTypeProblem(type: number): string | undefined {
 
 /** Security classification letters of the TLE/OMM (U unclassified, C, S). */
 export const CLASSIFICATIONS = ['U', 'C', 'S'] as const;
+
+/**
+ * Lowest perigee height accepted, km above the WGS-84 equatorial radius. An orbit
+ * whose perigee is lower (a sub-orbital set, e close to 1, a perigee inside the
+ * Earth) cannot be flown for even a day: refused at reading, not planned empty.
+ * 100 km is the usual edge of space (common practice); decaying sets near
+ * re-entry still have perigees of 120 km and more.
+ */
+export const MIN_PERIGEE_HEIGHT_KM = 100;
+
+/**
+ * Perigee height, km above the equatorial radius, of mean elements: semi-major axis
+ * from Kepler's third law with the mean motion (a = (GM / n^2)^(1/3)), times (1 - e).
+ * The Kozai / Brouwer difference of the mean motion (a few km) does not matter here.
+ */
+export function perigeeHeightKm(meanMotionRevPerDay: number, eccentricity: number): number {
+  const nRadS = (meanMotionRevPerDay * 2 * Math.PI) / 86_400;
+  const aKm = Math.cbrt(WGS84_GM_KM3_S2 / (nRadS * nRadS));
+  return aKm * (1 - eccentricity) - WGS84_EQUATORIAL_RADIUS_KM;
+}
+
+/** Mean motion (rev/day) and eccentricity of a parsed set (TLE columns 53-63 and 27-33, or the OMM's). */
+export function meanMotionAndEccentricity(set: ElementSet): { meanMotionRevPerDay: number; eccentricity: number } | undefined {
+  if (set.omm) return { meanMotionRevPerDay: set.omm.meanMotionRevPerDay, eccentricity: set.omm.eccentricity };
+  if (set.tle) return { meanMotionRevPerDay: Number(set.tle.line2.slice(52, 63)), eccentricity: Number(`0.${set.tle.line2.slice(26, 33)}`) };
+  return undefined;
+}
+
+/**
+ * A message about a perigee below the floor, or undefined. Checked where a set
+ * becomes a spacecraft's orbit (scenario/load.ts), not by the format readers: the
+ * SGP4 verification file deliberately holds decaying orbits.
+ */
+export function perigeeProblem(meanMotionRevPerDay: number, eccentricity: number): string | undefined {
+  const h = perigeeHeightKm(meanMotionRevPerDay, eccentricity);
+  if (h >= MIN_PERIGEE_HEIGHT_KM) return undefined;
+  return (
+    `mean motion ${meanMotionRevPerDay} rev/day with eccentricity ${eccentricity} puts the perigee at ${h.toFixed(0)} km ` +
+    `(${h < 0 ? 'inside the Earth' : 'below the floor'}); valid: a perigee at least ${MIN_PERIGEE_HEIGHT_KM} km above the WGS-84 equatorial radius`
+  );
+}
+
+/** Epoch years accepted for element sets (the first satellite .. the end of the program's date range). */
+export const EPOCH_YEAR_MIN = 1957;
+export const EPOCH_YEAR_MAX = 2099;
+
+/** Characters of a foreign line quoted in a message. */
+export const QUOTED_LINE_CHARS = 80;
+
+/** A line for a message: quoted, cut to QUOTED_LINE_CHARS characters. */
+export function quoteLine(text: string): string {
+  return quote(text.length > QUOTED_LINE_CHARS ? `${text.slice(0, QUOTED_LINE_CHARS)}...` : text);
+}
+
+/**
+ * Quotes only the first offending line of a text: later calls return undefined.
+ * A file that is not what it should be (a path to some other file) is then not
+ * echoed line by line into the messages.
+ */
+export function firstLineQuoter(): (text: string) => string | undefined {
+  let used = false;
+  return (text) => {
+    if (used) return undefined;
+    used = true;
+    return quoteLine(text);
+  };
+}

@@ -11,12 +11,23 @@
  * (1013.25 hPa, 288.15 K, 7.5 g/m3); Nwet 50 N-units; availability 99.5 %.
  */
 import { DateTime } from 'luxon';
-import { ScenarioError, type Problem } from '../errors.js';
+import { ScenarioError, appendAll, type Problem } from '../errors.js';
 import { readText, parseStructured, resolveBeside, zodProblems } from './read.js';
-import { spacecraftFileSchema, networkFileSchema, type SpacecraftEntry, type StationEntry, type RadioEntry } from './schema.js';
+import {
+  spacecraftFileSchema,
+  networkFileSchema,
+  spacecraftSchema,
+  orbitSchema,
+  radioSchema,
+  stationSchema,
+  type SpacecraftEntry,
+  type StationEntry,
+  type RadioEntry,
+} from './schema.js';
 import { parseTleText } from './tle.js';
 import { parseOmm } from './omm.js';
 import { resolveCoding } from './coding.js';
+import { meanMotionAndEccentricity, perigeeProblem } from './elements-common.js';
 import type { ElementSet, OrbitSource, Radio, Scenario, Spacecraft, Station, Span, Mask, Receiver, TxAntenna } from './types.js';
 
 export interface ScenarioFiles {
@@ -40,26 +51,73 @@ export function loadScenario(files: ScenarioFiles): Scenario {
   };
 }
 
-function readData(file: string, problems: Problem[]): unknown {
+function readData(file: string, problems: Problem[]): { data: unknown; text: string } | undefined {
   const text = readText(file);
   if (!text.ok) {
-    problems.push(...text.problems);
+    appendAll(problems, text.problems);
     return undefined;
   }
   const data = parseStructured(text.value, file);
   if (!data.ok) {
-    problems.push(...data.problems);
+    appendAll(problems, data.problems);
     return undefined;
   }
-  return data.value;
+  return { data: data.value, text: text.value };
+}
+
+/** A plain object's field, or undefined (for checking the parts of a file that failed as a whole). */
+function field(data: unknown, key: string): unknown {
+  return data !== null && typeof data === 'object' && !Array.isArray(data) ? (data as Record<string, unknown>)[key] : undefined;
+}
+
+/**
+ * All problems at once: when the file as a whole fails its field checks, the
+ * deeper checks (window time, element sets, coding names) still run on every
+ * part that passes on its own, so one pass reports both kinds.
+ */
+function checkValidPartsOfFleet(data: unknown, file: string, problems: Problem[]): void {
+  const from = field(field(data, 'window'), 'from');
+  if (typeof from === 'string' && from !== '' && parseInstant(from) === undefined) {
+    problems.push({ file, path: 'window.from', message: `${JSON.stringify(from)} is not an ISO 8601 time from ${INSTANT_RANGE_TEXT} (e.g. "2026-03-05T00:00:00Z")` });
+  }
+  const list = field(data, 'spacecraft');
+  if (!Array.isArray(list)) return;
+  list.forEach((entry: unknown, i) => {
+    const path = `spacecraft[${i}]`;
+    const whole = spacecraftSchema.safeParse(entry);
+    if (whole.success) {
+      toSpacecraft(whole.data, file, path, problems);
+      return;
+    }
+    const orbit = orbitSchema.safeParse(field(entry, 'orbit'));
+    if (orbit.success) toOrbit(orbit.data, file, `${path}.orbit`, problems);
+    const radios = field(entry, 'radios');
+    if (Array.isArray(radios)) {
+      radios.forEach((r: unknown, j) => {
+        const radio = radioSchema.safeParse(r);
+        if (radio.success) toRadio(radio.data, file, `${path}.radios[${j}]`, problems);
+      });
+    }
+  });
+}
+
+function checkValidPartsOfNetwork(data: unknown, file: string, problems: Problem[]): void {
+  const list = field(data, 'stations');
+  if (!Array.isArray(list)) return;
+  list.forEach((entry: unknown, i) => {
+    const station = stationSchema.safeParse(entry);
+    if (station.success) toStation(station.data, file, `stations[${i}]`, problems);
+  });
 }
 
 function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraft' | 'span' | 'link'> | undefined {
-  const data = readData(file, problems);
-  if (data === undefined) return undefined;
+  const read = readData(file, problems);
+  if (read === undefined) return undefined;
+  const { data, text } = read;
   const parsed = spacecraftFileSchema.safeParse(data);
   if (!parsed.success) {
-    problems.push(...zodProblems(file, data, parsed.error.issues));
+    appendAll(problems, zodProblems(file, data, parsed.error.issues, [], text));
+    checkValidPartsOfFleet(data, file, problems);
     return undefined;
   }
   const doc = parsed.data;
@@ -147,7 +205,7 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
   else if (orbit.tleFile !== undefined) {
     const target = resolveBeside(file, orbit.tleFile);
     const text = readText(target, '');
-    if (!text.ok) problems.push(...text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.tleFile)` })));
+    if (!text.ok) appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.tleFile)` })));
     else sets = collect(named(parseTleText(text.value, target, ''), `${file}: ${path}.tleFile`), problems);
   } else if (orbit.omm !== undefined) {
     const text = typeof orbit.omm === 'string' ? orbit.omm : JSON.stringify(orbit.omm);
@@ -155,7 +213,7 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
   } else if (orbit.ommFile !== undefined) {
     const target = resolveBeside(file, orbit.ommFile);
     const text = readText(target, '');
-    if (!text.ok) problems.push(...text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.ommFile)` })));
+    if (!text.ok) appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.ommFile)` })));
     else sets = collect(named(parseOmm(text.value, target, ''), `${file}: ${path}.ommFile`), problems);
   }
   if (orbit.catalogNumber !== undefined) {
@@ -168,7 +226,23 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
     }
   }
   if (sets.length === 0 && problems.length === 0) problems.push({ file, path, message: 'holds no element set' });
+  // an orbit that dips into the Earth (sub-orbital, e close to 1) is refused, not planned empty
+  for (const set of sets) {
+    const el = meanMotionAndEccentricity(set);
+    const low = el ? perigeeProblem(el.meanMotionRevPerDay, el.eccentricity) : undefined;
+    if (low) problems.push({ file, path: `${path}.${orbitField(orbit)}`, message: `${setLabel(set, file)}: ${low}` });
+  }
   return { kind: 'elements', sets };
+}
+
+function orbitField(orbit: SpacecraftEntry['orbit']): string {
+  return orbit.tle !== undefined ? 'tle' : orbit.tleFile !== undefined ? 'tleFile' : orbit.omm !== undefined ? 'omm' : 'ommFile';
+}
+
+/** "element set <origin> (catalogue N)", the origin without the file already named. */
+function setLabel(set: ElementSet, file: string): string {
+  const origin = set.origin.startsWith(`${file}: `) ? set.origin.slice(file.length + 2) : set.origin;
+  return `element set ${origin} (catalogue ${set.catalogNumber})`;
 }
 
 /** Problems in a file named by another say which field named it. */
@@ -177,7 +251,7 @@ function named(result: { sets: ElementSet[]; problems: Problem[] }, by: string):
 }
 
 function collect(result: { sets: ElementSet[]; problems: Problem[] }, problems: Problem[]): ElementSet[] {
-  problems.push(...result.problems);
+  appendAll(problems, result.problems);
   return result.sets;
 }
 
@@ -214,11 +288,13 @@ function toRadio(r: RadioEntry, file: string, path: string, problems: Problem[])
 }
 
 function loadNetwork(file: string, problems: Problem[]): Station[] | undefined {
-  const data = readData(file, problems);
-  if (data === undefined) return undefined;
+  const read = readData(file, problems);
+  if (read === undefined) return undefined;
+  const { data, text } = read;
   const parsed = networkFileSchema.safeParse(data);
   if (!parsed.success) {
-    problems.push(...zodProblems(file, data, parsed.error.issues));
+    appendAll(problems, zodProblems(file, data, parsed.error.issues, [], text));
+    checkValidPartsOfNetwork(data, file, problems);
     return undefined;
   }
   const before = problems.length;
@@ -236,6 +312,16 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
         problems.push({ file, path: `${path}.horizon`, message: `azimuth ${pts[i]![0]} appears twice; each azimuth once` });
         break;
       }
+    }
+    // 0 and 360 deg are one direction: the mask model refuses two elevations there
+    const first = pts[0];
+    const last = pts[pts.length - 1];
+    if (first && last && first[0] === 0 && last[0] === 360 && first[1] !== last[1]) {
+      problems.push({
+        file,
+        path: `${path}.horizon`,
+        message: `[0, ${first[1]}] and [360, ${last[1]}] are the same azimuth with different elevations; valid: give one of them, or the same elevation at both`,
+      });
     }
     mask = { kind: 'profile', azimuthDeg: pts.map((p) => p[0] % 360), elevationDeg: pts.map((p) => p[1]) };
   }

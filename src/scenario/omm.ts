@@ -39,6 +39,9 @@ import {
   parseCount,
   parseDecimal,
   quote,
+  firstLineQuoter,
+  EPOCH_YEAR_MIN,
+  EPOCH_YEAR_MAX,
 } from './elements-common.js';
 
 export type OmmFormat = 'kvn' | 'xml' | 'json';
@@ -120,6 +123,7 @@ export function parseCcsdsEpoch(text: string): EpochResult {
     };
   }
   const year = Number(yS);
+  if (year < EPOCH_YEAR_MIN || year > EPOCH_YEAR_MAX) return { ok: false, valid: `a year from ${EPOCH_YEAR_MIN} to ${EPOCH_YEAR_MAX}` };
   let dayOfYear: number;
   if (doyS !== undefined) {
     dayOfYear = Number(doyS);
@@ -163,6 +167,7 @@ function detectFormat(text: string): OmmFormat {
 function readKvn(text: string, report: Report): Message[] {
   const messages: Message[] = [];
   let cur: Message | undefined;
+  const quoteOnce = firstLineQuoter();
   text.replace(/^\uFEFF/, '').split(/\r\n|\r|\n/).forEach((raw, i) => {
     const lineNo = i + 1;
     const t = raw.trim();
@@ -170,7 +175,8 @@ function readKvn(text: string, report: Report): Message[] {
     if (/^[A-Z_]+_(START|STOP)$/.test(t)) return; // META_START, DATA_START, COVARIANCE_STOP ...
     const m = /^([A-Za-z][A-Za-z0-9_]*)\s*=\s*(.*)$/.exec(t);
     if (!m) {
-      report(`line ${lineNo}: ${quote(t)} is not a KVN line; valid: KEYWORD = value [unit], a COMMENT line or a blank line`);
+      const shown = quoteOnce(t);
+      report(`line ${lineNo}: ${shown ? `${shown} ` : ''}is not a KVN line; valid: KEYWORD = value [unit], a COMMENT line or a blank line`);
       return;
     }
     const key = (m[1] ?? '').toUpperCase();
@@ -239,7 +245,18 @@ function asList(n: XmlNode): XmlNode[] {
   return Array.isArray(n) ? n : [n];
 }
 
+/** A document type or entity declaration: refused before any XML parsing (no entity is ever expanded). */
+const XML_DECLARATIONS = /<!(DOCTYPE|ENTITY|ELEMENT|ATTLIST)\b/i;
+
 function readXml(text: string, report: Report): Message[] {
+  const declared = XML_DECLARATIONS.exec(text);
+  if (declared) {
+    const line = text.slice(0, declared.index).split('\n').length;
+    report(
+      `line ${line}: a <!${(declared[1] ?? '').toUpperCase()} declaration; valid: an NDM/XML document without document type or entity declarations (they are refused, never expanded)`,
+    );
+    return [];
+  }
   const valid = XMLValidator.validate(text);
   if (valid !== true) {
     report(`not well-formed XML: ${valid.err.msg} (line ${valid.err.line}, column ${valid.err.col}); valid: an NDM/XML document with <omm> elements`);
@@ -254,7 +271,13 @@ function readXml(text: string, report: Report): Message[] {
     trimValues: true,
     isArray: (name) => name === 'omm' || name === 'segment',
   });
-  const doc = parser.parse(text) as XmlNode;
+  let doc: XmlNode;
+  try {
+    doc = parser.parse(text) as XmlNode;
+  } catch (err) {
+    report(`cannot be read as XML: ${(err as Error).message.split('\n')[0] ?? 'parse error'}; valid: an NDM/XML document with <omm> elements`);
+    return [];
+  }
   if (!isObject(doc)) return [];
   const omms = isObject(doc['ndm']) ? asList(doc['ndm']['omm']) : asList(doc['omm']);
   if (omms.length === 0) {
@@ -456,6 +479,13 @@ function checkMessage(msg: Message, label: string, origin: string, report: Repor
   };
 }
 
+/** The mean elements and drag terms of a set, for telling two sets at one epoch apart. */
+function elementsKey(set: ElementSet): string {
+  const o = set.omm;
+  if (!o) return '';
+  return [o.meanMotionRevPerDay, o.eccentricity, o.inclinationDeg, o.raanDeg, o.argPericenterDeg, o.meanAnomalyDeg, o.bstarPerEarthRadii, o.meanMotionDotRevPerDay2, o.meanMotionDdotRevPerDay3].join('|');
+}
+
 /**
  * Read every OMM in `text` (KVN, XML or JSON; detected from the first character
  * when `format` is not given: '<' XML, '{' or '[' JSON, anything else KVN) and
@@ -483,13 +513,26 @@ export function parseOmm(
   }
   const base = fieldPath ? `${file}: ${fieldPath}` : file;
   const sets: ElementSet[] = [];
+  const byKey = new Map<string, { set: ElementSet; index: number }>();
   messages.forEach((msg, i) => {
     const name = msg.get('OBJECT_NAME')?.value.trim();
     const numbered = messages.length > 1 ? ` ${i + 1} of ${messages.length}` : '';
     const label = `OMM ${kind}${numbered}${name ? ` (${quote(name)})` : ''}: `;
     const origin = base + (messages.length > 1 ? ` [${i}]` : '') + (name ? ` (${name})` : '');
     const set = checkMessage(msg, label, origin, report);
-    if (set) sets.push(set);
+    if (!set) return;
+    // two different sets for one object at one epoch: which one is meant is unknowable
+    const key = `${set.omm?.noradCatId}|${set.epochMs}`;
+    const twin = byKey.get(key);
+    const at = (k: number): string => `message ${k + 1} (EPOCH at ${messages[k]?.get('EPOCH')?.where ?? '?'})`;
+    if (twin && elementsKey(twin.set) !== elementsKey(set)) {
+      report(
+        `OMM ${kind}: ${at(i)} and ${at(twin.index)} have the same NORAD_CAT_ID ${set.catalogNumber} and EPOCH but different elements; valid: one element set per object and epoch`,
+      );
+      return;
+    }
+    if (!twin) byKey.set(key, { set, index: i });
+    sets.push(set);
   });
   return { sets, problems };
 }

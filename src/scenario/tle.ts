@@ -36,7 +36,9 @@ import {
   ephemerisTypeProblem,
   inRange,
   isoFromDayMicros,
+  firstLineQuoter,
   quote,
+  quoteLine,
 } from './elements-common.js';
 
 /** Mod-10 checksum of columns 1-68 of a TLE line ('-' counts 1, digits their value). */
@@ -200,7 +202,14 @@ function where(ref: LineRef): string {
 type Report = (message: string) => void;
 
 /** Length, line number, checksum and fixed-column checks for one line. True when its fields can be read. */
-function checkLine(line: string, ref: LineRef, specs: readonly FieldSpec[], checksum: boolean, report: Report): boolean {
+function checkLine(
+  line: string,
+  ref: LineRef,
+  specs: readonly FieldSpec[],
+  checksum: boolean,
+  report: Report,
+  quoteOnce: (text: string) => string | undefined = quoteLine,
+): boolean {
   const at = where(ref);
   const lineDigit = line[0] ?? '';
   let ok = true;
@@ -209,7 +218,8 @@ function checkLine(line: string, ref: LineRef, specs: readonly FieldSpec[], chec
     ok = false;
   }
   if (line.length < 69) {
-    report(`${at}: line is ${line.length} characters long; valid: at least 69 (columns 1-69, checksum in column 69): ${quote(line)}`);
+    const shown = quoteOnce(line);
+    report(`${at}: line is ${line.length} characters long; valid: at least 69 (columns 1-69, checksum in column 69)${shown ? `: ${shown}` : ''}`);
     return false;
   }
   if (checksum) {
@@ -327,6 +337,11 @@ function checkValues(v1: Line1Values, v2: Line2Values, ref1: LineRef, ref2: Line
 }
 
 
+/** The elements of a set (drag terms of line 1, line 2 without catalogue, revolution number and checksum). */
+function elementsOf(set: ElementSet): string {
+  return set.tle ? `${set.tle.line1.slice(33, 61)}|${set.tle.line2.slice(8, 63)}` : '';
+}
+
 /** A TLE line is recognised by its line number and a blank, or by its length. */
 function looksLikeDataLine(line: string): boolean {
   return /^[12] /.test(line) || line.length >= 60;
@@ -368,6 +383,15 @@ export function parseTleText(
     l2: { text: string; no: number };
   }
   const found: Found[] = [];
+  const quoter = firstLineQuoter();
+  let quoted = 0;
+  const quoteOnce = (t: string): string | undefined => {
+    const q = quoter(t);
+    quoted++;
+    return q;
+  };
+  /** After the first quoted line, later name lines are not echoed either. */
+  const quoteOnceUsed = (): boolean => quoted > 0;
   let setNo = 0;
   let i = 0;
   while (i < lines.length) {
@@ -380,22 +404,29 @@ export function parseTleText(
       i++;
     }
     const l1 = lines[i];
-    const named = name !== undefined ? ` ${quote(name)}` : '';
+    // a text that is not element sets (a path to another file) is quoted once, cut short
+    const named = name !== undefined ? ` ${quoteLine(name)}` : '';
     if (!l1 || !looksLikeDataLine(l1.text)) {
       const after = `after the name line (line ${first.no} of the text)`;
-      report(`set ${setNo}${named}: line 1 missing ${after}; valid: a 2-line or 3-line element set${l1 ? `, found ${quote(l1.text)}` : ', found the end of the text'}`);
+      const showName = !quoteOnceUsed();
+      const shown = l1 ? quoteOnce(l1.text) : undefined;
+      report(
+        `set ${setNo}${showName ? named : ''}: line 1 missing ${after}; valid: a 2-line or 3-line element set${l1 ? `, found ${shown ?? `line ${l1.no}`}` : ', found the end of the text'}`,
+      );
       continue;
     }
     if (l1.text.startsWith('2 ')) {
-      report(`set ${setNo}${named}: line 1 missing, found a line 2 at line ${l1.no} of the text (${quote(l1.text)}); valid: line 1 (column 1 '1') then line 2`);
+      const shown = quoteOnce(l1.text);
+      report(`set ${setNo}${named}: line 1 missing, found a line 2 at line ${l1.no} of the text${shown ? ` (${shown})` : ''}; valid: line 1 (column 1 '1') then line 2`);
       i++;
       continue;
     }
     i++;
     const l2 = lines[i];
     if (!l2 || !looksLikeDataLine(l2.text) || l2.text.startsWith('1 ')) {
+      const shown = l2 ? quoteOnce(l2.text) : undefined;
       report(
-        `set ${setNo}${named}: line 2 missing after line 1 (line ${l1.no} of the text)${l2 ? `, found ${quote(l2.text)} at line ${l2.no}` : ', found the end of the text'}; valid: line 2 right after line 1`,
+        `set ${setNo}${named}: line 2 missing after line 1 (line ${l1.no} of the text)${l2 ? `, found ${shown ? `${shown} at ` : ''}line ${l2.no}` : ', found the end of the text'}; valid: line 2 right after line 1`,
       );
       continue;
     }
@@ -407,6 +438,7 @@ export function parseTleText(
   }
 
   const sets: ElementSet[] = [];
+  const byKey = new Map<string, { set: ElementSet; setNo: number; line: number }>();
   const origin = fieldPath ? `${file}: ${fieldPath}` : file;
   for (const f of found) {
     const before = problems.length;
@@ -420,8 +452,8 @@ export function parseTleText(
     const cat2 = cols(f.l2.text, 3, 7).trim();
     if (cat1) ref1.catalogue = cat1;
     if (cat2) ref2.catalogue = cat2;
-    const ok1 = checkLine(f.l1.text, ref1, LINE1, checksum, report);
-    const ok2 = checkLine(f.l2.text, ref2, LINE2, checksum, report);
+    const ok1 = checkLine(f.l1.text, ref1, LINE1, checksum, report, quoteOnce);
+    const ok2 = checkLine(f.l2.text, ref2, LINE2, checksum, report, quoteOnce);
     if (!ok1 || !ok2) continue;
     const line1 = f.l1.text.slice(0, 69);
     const line2 = f.l2.text.slice(0, 69);
@@ -430,12 +462,24 @@ export function parseTleText(
     checkValues(v1, v2, ref1, ref2, report);
     if (problems.length > before) continue;
     const tag = (setNo > 1 ? ` set ${f.setNo}` : '') + (f.name ? ` (${f.name})` : '');
-    sets.push({
+    const set: ElementSet = {
       origin: origin + tag,
       catalogNumber: v1.catalogue.trim(),
       epochMs: epochOf(v1).epochMs,
       tle: { line1, line2 },
-    });
+    };
+    // two different sets for one object at one epoch: which one is meant is unknowable
+    const key = `${catalogueValue(v1.catalogue)}|${set.epochMs}`;
+    const twin = byKey.get(key);
+    if (twin && elementsOf(twin.set) !== elementsOf(set)) {
+      report(
+        `set ${f.setNo} (line ${f.l1.no} of the text) and set ${twin.setNo} (line ${twin.line} of the text) have the same catalogue number ${v1.catalogue.trim()} ` +
+          `and epoch but different elements; valid: one element set per object and epoch`,
+      );
+      continue;
+    }
+    if (!twin) byKey.set(key, { set, setNo: f.setNo, line: f.l1.no });
+    sets.push(set);
   }
   return { sets, problems };
 }

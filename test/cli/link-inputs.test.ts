@@ -68,13 +68,14 @@ describe('link inputs outside a model or the schema', () => {
     const r = await plan(files({ frequencyMHz: 60_000 }));
     expect(r.code).toBe(2);
     expect(r.err.trim().split('\n')).toHaveLength(1);
-    expect(r.err).toMatch(/radio R at station TST: .*P\.618.*60.*1\.\.55 GHz/);
+    // names the file and the field (preflight), and the station
+    expect(r.err).toMatch(/fleet-.*\.json: spacecraft\[0\]\.radios\[0\]\.frequencyMHz: .*P\.618.*60.*1\.\.55 GHz.*at station TST/);
   });
 
   it('a 500 MHz radio: gaseous attenuation (P.676) starts at 1 GHz', async () => {
     const r = await plan(files({ frequencyMHz: 500 }, { climate: {} }));
     expect(r.code).toBe(2);
-    expect(r.err).toMatch(/radio R at station TST: .*0\.5.*1\.\./);
+    expect(r.err).toMatch(/spacecraft\[0\]\.radios\[0\]\.frequencyMHz: .*0\.5.*1\.\..*at station TST/);
   });
 
   it('negative power, efficiency outside (0, 1], availability outside 90..99.999 %', async () => {

@@ -256,6 +256,20 @@ export const ELEMENT_AGE_LIMIT_DAYS = 14;
  * more than ELEMENT_AGE_LIMIT_DAYS away; undefined otherwise.
  */
 export function elementAgeWarning(sets: ElementSet[], span: Span): string | undefined {
+  const worst = worstElementAge(sets, span);
+  if (worst === undefined || worst.days <= ELEMENT_AGE_LIMIT_DAYS) return undefined;
+  return (
+    `${worst.set.origin}: element set epoch ${new Date(Math.floor(worst.set.epochMs)).toISOString()} is ` +
+    `${worst.days.toFixed(1)} days from ${new Date(Math.floor(worst.atMs)).toISOString()} in the span ` +
+    `(limit ${ELEMENT_AGE_LIMIT_DAYS} days); SGP4 errors grow by kilometres per day`
+  );
+}
+
+/**
+ * The largest distance, days, from a time in the span to the element set nearest it
+ * (the set used there), with that set and time; undefined without sets.
+ */
+export function worstElementAge(sets: ElementSet[], span: Span): { days: number; set: ElementSet; atMs: number } | undefined {
   if (sets.length === 0) return undefined;
   const sorted = [...sets].sort((a, b) => a.epochMs - b.epochMs);
   // The worst time is a span end or a midpoint between consecutive epochs inside the span.
@@ -277,10 +291,5 @@ export function elementAgeWarning(sets: ElementSet[], span: Span): string | unde
       worstAt = t;
     }
   }
-  if (worstDays <= ELEMENT_AGE_LIMIT_DAYS) return undefined;
-  return (
-    `${worstSet.origin}: element set epoch ${new Date(Math.floor(worstSet.epochMs)).toISOString()} is ` +
-    `${worstDays.toFixed(1)} days from ${new Date(Math.floor(worstAt)).toISOString()} in the span ` +
-    `(limit ${ELEMENT_AGE_LIMIT_DAYS} days); SGP4 errors grow by kilometres per day`
-  );
+  return { days: worstDays, set: worstSet, atMs: worstAt };
 }
