@@ -51,6 +51,10 @@ import { findContacts, prepareGeometry, type Geometry } from './contacts.js';
 import { integrateContacts, linkKey, lowestMaskDeg, prepareLinks, prepareRadioAtStation, type LinkSetup } from './link.js';
 import { maxDepth, scheduleContacts } from './schedule.js';
 import { preparePoint } from './single.js';
+import { SolverLimitError } from '../geometry/roots.js';
+
+/** Bisection steps any sizing search may take (a 120 dB or 1e6:1 bracket needs under 40): past it, a bug. */
+const MAX_BISECTIONS = 200;
 import { planResult } from './run.js';
 import type { Contact, PlanResult } from './types.js';
 
@@ -325,7 +329,8 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
         loBpd = b;
       }
     }
-    while (hi !== null && lo !== null && !atLimit && hi - lo > POWER_TOLERANCE_DB) {
+    for (let it = 0; hi !== null && lo !== null && !atLimit && hi - lo > POWER_TOLERANCE_DB; it++) {
+      if (it >= MAX_BISECTIONS) throw new SolverLimitError('size: power bisection', MAX_BISECTIONS, lo, hi);
       const mid = 0.5 * (lo + hi);
       const [ok, b] = meets(mid);
       if (ok) [hi, hiBpd] = [mid, b];
@@ -345,7 +350,8 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
       start = Math.max(SYMBOL_RATE_LIMITS_BAUD.min, lowest);
       limit = SYMBOL_RATE_LIMITS_BAUD.max;
     }
-    for (let v = start; ; v *= SCAN_RATIO) {
+    for (let v = start, it = 0; ; v *= SCAN_RATIO, it++) {
+      if (it >= MAX_BISECTIONS) throw new SolverLimitError(`size: ${req.solve} bracket scan`, MAX_BISECTIONS, start, limit);
       const q = Math.min(v, limit);
       const [ok, b] = meets(q);
       if (ok) {
@@ -359,7 +365,8 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
       loBpd = b;
       if (q >= limit) break;
     }
-    while (hi !== null && lo !== null && !atLimit && hi / lo - 1 > RELATIVE_TOLERANCE) {
+    for (let it = 0; hi !== null && lo !== null && !atLimit && hi / lo - 1 > RELATIVE_TOLERANCE; it++) {
+      if (it >= MAX_BISECTIONS) throw new SolverLimitError(`size: ${req.solve} bisection`, MAX_BISECTIONS, lo, hi);
       const mid = Math.sqrt(lo * hi);
       const [ok, b] = meets(mid);
       if (ok) [hi, hiBpd] = [mid, b];

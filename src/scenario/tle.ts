@@ -448,6 +448,16 @@ export function parseTleText(
       ref1.name = f.name;
       ref2.name = f.name;
     }
+    // a line that is no TLE line at all (not a digit and a blank in columns 1-2: another
+    // kind of file) is not checked column by column, so its text is not echoed piecemeal
+    const foreign = [f.l1, f.l2].find((l) => !/^\d /.test(l.text));
+    if (foreign) {
+      const shown = quoteOnce(foreign.text);
+      report(
+        `set ${f.setNo}: line ${foreign.no} of the text${shown ? ` (${shown})` : ''} is not a TLE line; valid: line 1 and line 2 of an element set, starting "1 " and "2 "`,
+      );
+      continue;
+    }
     const cat1 = cols(f.l1.text, 3, 7).trim();
     const cat2 = cols(f.l2.text, 3, 7).trim();
     if (cat1) ref1.catalogue = cat1;
