@@ -23,6 +23,9 @@ const id = () =>
     .regex(/^[A-Za-z0-9][A-Za-z0-9._-]{0,39}$/, { message: 'must be 1..40 letters, digits, ".", "_" or "-", starting with a letter or digit' });
 const text = () => z.string({ message: 'must be a string' }).min(1, { message: 'must not be empty' });
 
+/** Most points of a horizon profile or an antenna pattern (a 0.1 deg grid over 360 deg). */
+export const MAX_PROFILE_POINTS = 3600;
+
 /** Exactly one of the named keys must be present. */
 function exactlyOne<T extends Record<string, unknown>>(keys: (keyof T & string)[]) {
   return (value: T, ctx: z.RefinementCtx) => {
@@ -65,8 +68,8 @@ export const antennaTxSchema = z
     gainDbi: range(-30, 80).optional(),
     pattern: z
       .object({
-        offBoresightDeg: z.array(range(0, 180)).min(2, { message: 'needs at least 2 points' }),
-        gainDbi: z.array(range(-60, 80)).min(2, { message: 'needs at least 2 points' }),
+        offBoresightDeg: z.array(range(0, 180)).min(2, { message: 'needs at least 2 points' }).max(MAX_PROFILE_POINTS, { message: `has more than ${MAX_PROFILE_POINTS} points` }),
+        gainDbi: z.array(range(-60, 80)).min(2, { message: 'needs at least 2 points' }).max(MAX_PROFILE_POINTS, { message: `has more than ${MAX_PROFILE_POINTS} points` }),
         pointing: z.enum(['nadir', 'tracking'], { message: 'must be "nadir" or "tracking"' }),
       })
       .strict()
@@ -161,6 +164,7 @@ export const stationSchema = z
     horizon: z
       .array(z.tuple([range(0, 360), range(-5, 90)], { message: 'each point must be [azimuthDeg, elevationDeg]' }))
       .min(2, { message: 'needs at least 2 [azimuthDeg, elevationDeg] points' })
+      .max(MAX_PROFILE_POINTS, { message: `has more than ${MAX_PROFILE_POINTS} points (0.1 deg steps)` })
       .optional(),
     timeZone: timeZone(),
     antenna: z

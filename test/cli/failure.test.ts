@@ -55,6 +55,7 @@ function tle(cat: string, meanMotion: string, ecc7: string, incl = ' 97.5800', e
   return `${l1}\n${l2}\n`;
 }
 const demoYaml = readFileSync(demoNetwork, 'utf8');
+const petrelOmm = readFileSync(join(root, 'ephemerides', 'petrel-3.omm'), 'utf8');
 
 // ------------------------------------------------------------------ machine abilities
 
@@ -351,6 +352,14 @@ const cases: Case[] = [
     exit: 2,
     first: /^error: .*fleet\.yaml: nests arrays and objects more than 32 levels deep/,
   },
+  {
+    item: '5',
+    what: 'a horizon of 5,000 points (spread into Math.min before): bounded at 3,600',
+    input: { 'net.yaml': demoYaml.replace('- [0, 3.0]', Array.from({ length: 5000 }, (_, i) => `- [${(i * 0.07).toFixed(2)}, 3.0]`).join('\n      ')) },
+    command: (c) => ['check', '--network', c.files['net.yaml']!],
+    exit: 2,
+    first: /^error: .*net\.yaml: stations\[0\]\.horizon: has more than 3600 points/,
+  },
   // 6. signals stop plan at once; element sets far from the window
   {
     item: '6',
@@ -546,6 +555,17 @@ const cases: Case[] = [
     command: (c) => ['check', '--spacecraft', c.files['fleet.json']!, ...net],
     exit: 2,
     first: /^error: .*fleet\.json: spacecraft\[0\]\.orbit\.tle: set 2 \(line 3 of the text\) and set 1 \(line 1 of the text\) have the same catalogue number 90009 and epoch but different elements/,
+  },
+  {
+    item: '12',
+    what: 'the same in an OMM KVN file: both EPOCH lines',
+    input: {
+      'fleet.json': fleet([kestrel((sc) => (sc.orbit = { ommFile: 'dup.omm' }))]),
+      'dup.omm': `${petrelOmm}\n${petrelOmm.replace('INCLINATION = 87.9000', 'INCLINATION = 88.0000')}`,
+    },
+    command: (c) => ['check', '--spacecraft', c.files['fleet.json']!, ...net],
+    exit: 2,
+    first: /^error: .*dup\.omm: OMM KVN: message 2 \(EPOCH at line 41\) and message 1 \(EPOCH at line 13\) have the same NORAD_CAT_ID 90003 and EPOCH but different elements/,
   },
   // 13. a byte-order mark
   {
