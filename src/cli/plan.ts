@@ -81,6 +81,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
                 maskMarginDb: m.maskMarginDb,
                 worstSeenMarginDb: m.worstSeenMarginDb ?? Number.NaN,
                 pass: m.pass,
+                notVisible: m.result === 'not visible',
               })),
               ...(recorders ? { recorderSvg: renderRecorderSvg(recorders) } : {}),
             }),

@@ -16,8 +16,9 @@
  * step or the minimum data elevation (and at 15-minute bin edges), and each
  * piece carries its rate: the step function is integrated exactly up to that
  * interpolation (integrateSegment). Time in each MODCOD comes from the same
- * pieces. The worst margin is the lowest over the samples of the whole contact
- * (AOS..LOS, both edges sampled).
+ * pieces. The worst margin is the lowest closure margin (above the most robust
+ * entry's threshold plus the required margin, LinkSample.closureMarginDb) over the
+ * samples of the whole contact (AOS..LOS, both edges sampled).
  */
 import { lookFrom, newLook } from '../geometry/topocentric.js';
 import { StateInterpolator } from '../geometry/interpolate.js';
@@ -31,7 +32,7 @@ import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types
 import { modcodStaircase, stepAt, type ModcodStaircase } from '../link/modcod/acm.js';
 import type { LinkSettings, Radio, Scenario, Station } from '../scenario/types.js';
 import type { Geometry } from './contacts.js';
-import { ModelRangeError, ScenarioError } from '../errors.js';
+import { ModelRangeError } from '../errors.js';
 import { VOLUME_BIN_MS, type Contact, type ContactLink } from './types.js';
 
 /** Frequency above which a missing rain climate is worth a warning, Hz. */
@@ -102,8 +103,9 @@ export function prepareRadioAtStation(
     return prepareRadioAtStationUnnamed(radio, station, site, settings, minElevationDeg, tableCache);
   } catch (err) {
     // A model asked for outside its range (a frequency above P.618's 55 GHz, a pointing
-    // error wider than the beam) becomes one line naming the radio and the station.
-    if (err instanceof ModelRangeError) throw new ScenarioError([{ file: `radio ${radio.id} at station ${station.id}`, path: '', message: err.message }]);
+    // error wider than the beam) stays a ModelRangeError (sizing ends its scan on one),
+    // with the radio and the station as its context; the CLI prints it as one line.
+    if (err instanceof ModelRangeError) throw err.withContext(`radio ${radio.id} at station ${station.id}`);
     throw err;
   }
 }
@@ -297,8 +299,8 @@ function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number,
 /** Adds the sample at tMs: worst margin over the whole contact, volume over the data span. */
 function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): void {
   acc.samples++;
-  if (s.marginDb < acc.worstMarginDb) {
-    acc.worstMarginDb = s.marginDb;
+  if (s.closureMarginDb < acc.worstMarginDb) {
+    acc.worstMarginDb = s.closureMarginDb;
     acc.worstAtMs = tMs;
     acc.worstElevationDeg = look.elevationDeg;
   }

@@ -25,9 +25,10 @@
  *   for a LEO at 5 deg. Valid for r >= R.
  * - The budget there: prepareRadioAtStation (atmosphere at the scenario's availability,
  *   table from 0 deg) + evaluateLink at (elevation, worst range, range rate 0). Its
- *   marginDb is already net of the radio's required margin (src/link/budget.ts): the row
- *   PASSES when that margin >= 0. For adaptive coding it is the margin above the MODCOD
- *   chosen there; it is >= 0 exactly when some MODCOD closes with the required margin.
+ *   closure margin is net of the radio's required margin (src/link/budget.ts): the row
+ *   PASSES when it is >= 0. For adaptive coding it is the margin above the most robust
+ *   entry's threshold (not above the entry in use, which is about 0 by construction);
+ *   it is >= 0 exactly when some MODCOD closes with the required margin.
  * - Usable data mask: the lowest elevation e* such that the margin is >= 0 at every
  *   elevation from e* to 90 deg at the same worst-case range model rho(e; r_max): a
  *   downward scan every USABLE_SCAN_STEP_DEG, then bisection to USABLE_TOLERANCE_DEG.
@@ -35,6 +36,10 @@
  *   down to the horizon.
  * - Worst margin seen: the lowest ContactLink.worstMarginDb of the pair's contacts in the
  *   plan (null when the pair had no contact with a link in the span).
+ * - Result: 'pass' / 'fail' by the margin at the check elevation; a pair with no contact
+ *   in the span (the spacecraft never rises over that station's mask) is 'not visible':
+ *   neither pass nor fail, and it does not set the exit code. A spacecraft with no orbit
+ *   state in the span fails (a gate must not pass silently).
  * Pure: no I/O.
  */
 import { ModelRangeError } from '../errors.js';
@@ -82,7 +87,16 @@ export interface MarginRow {
   /** Lowest margin of the pair's contacts in the plan, dB; null: no contact. */
   worstSeenMarginDb: number | null;
   contacts: number;
+  /** True only when result is 'pass'. */
   pass: boolean;
+  result: MarginResult;
+}
+
+export type MarginResult = 'pass' | 'fail' | 'not visible';
+
+/** True when no row fails ('not visible' rows neither pass nor fail). */
+export function marginGatePasses(rows: readonly MarginRow[]): boolean {
+  return rows.every((r) => r.result !== 'fail');
 }
 
 export interface MarginOptions {
@@ -167,7 +181,7 @@ export function marginAtElevation(
   look.rangeKm = slantRangeAtElevationKm(stationRadiusKm, targetRadiusKm, elevationDeg);
   look.rangeRateKmS = 0;
   evaluateLink(link, look, out);
-  return out.marginDb;
+  return out.closureMarginDb;
 }
 
 /** Usable data mask (see the head comment): deg, or null when the link never closes. */
@@ -194,7 +208,7 @@ export function usableMaskDeg(link: PreparedLink, stationRadiusKm: number, targe
 }
 
 function modcodName(link: PreparedLink, s: LinkSample): string {
-  if (s.marginDb < 0) return '';
+  if (s.closureMarginDb < 0) return '';
   if (link.codingKind === 'fixed') return link.codingName;
   return link.modcodTable[s.modcodIndex]?.name ?? '';
 }
@@ -251,6 +265,7 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
           worstSeenMarginDb: null,
           contacts: 0,
           pass: false,
+          result: 'fail',
         });
         continue;
       }
@@ -280,7 +295,8 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
         usableMaskDeg: usableMaskDeg(link, stationRadiusKm, far.radiusKm, opts.toleranceDeg),
         worstSeenMarginDb: worstSeen,
         contacts: contacts.length,
-        pass: maskMarginDb >= 0,
+        pass: contacts.length > 0 && maskMarginDb >= 0,
+        result: contacts.length === 0 ? 'not visible' : maskMarginDb >= 0 ? 'pass' : 'fail',
       });
     }
   });

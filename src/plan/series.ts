@@ -72,7 +72,7 @@ export function sampleContact(
     tMs[m] = t;
     elevationDeg[m] = look.elevationDeg;
     rateBps[m] = t >= dataStartMs ? sample.rateBps : 0;
-    marginDb[m] = sample.marginDb;
+    marginDb[m] = sample.closureMarginDb;
     m++;
   }
   return {

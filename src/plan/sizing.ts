@@ -50,7 +50,7 @@ import type { Radio, Scenario, Span, Station } from '../scenario/types.js';
 import { findContacts, prepareGeometry, type Geometry } from './contacts.js';
 import { integrateContacts, linkKey, lowestMaskDeg, prepareLinks, prepareRadioAtStation, type LinkSetup } from './link.js';
 import { maxDepth, scheduleContacts } from './schedule.js';
-import { preparePoint } from './single.js';
+import { preparePoint, withOverrides, type LinkOverrides } from './single.js';
 import { planResult } from './run.js';
 import type { Contact, PlanResult } from './types.js';
 
@@ -394,7 +394,7 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
 
 // ---------------------------------------------------------------- one geometry
 
-export interface PointSizingRequest {
+export interface PointSizingRequest extends LinkOverrides {
   spacecraftId: string;
   stationId: string;
   elevationDeg?: number;
@@ -426,7 +426,7 @@ export interface PointSizingResult {
 /** The prepared budget and look of a one-geometry request (shared with the tests). */
 export function pointLink(scenario: Scenario, req: Omit<PointSizingRequest, 'targetRateBps'>): { link: PreparedLink; look: Look; radio: Radio } {
   const { link, look, radio } = preparePoint(scenario, req, 'size');
-  return { link, radio, look };
+  return { link: withOverrides(link, req), radio, look };
 }
 
 /** One-geometry mode (see the head comment). */

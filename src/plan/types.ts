@@ -12,6 +12,7 @@ export interface ContactLink {
   dataEndMs: number;
   /** Seconds during which the link closed (rate > 0). */
   closedS: number;
+  /** Lowest closure margin over the contact's samples, dB (LinkSample.closureMarginDb). */
   worstMarginDb: number;
   worstMarginAtMs: number;
   worstMarginElevationDeg: number;

@@ -84,9 +84,9 @@ export function contactRecord(c: Contact): Record<string, string | number | bool
   const rec: Record<string, string | number | boolean | null> = {
     station: c.stationId,
     spacecraft: c.spacecraftId,
-    aos_utc: isoUtc(c.aosMs, 1),
-    tca_utc: isoUtc(c.tcaMs, 1),
-    los_utc: isoUtc(c.losMs, 1),
+    aos_utc: isoUtc(c.aosMs, 3),
+    tca_utc: isoUtc(c.tcaMs, 3),
+    los_utc: isoUtc(c.losMs, 3),
     duration_s: round(c.durationS, 1),
     max_elevation_deg: round(c.maxElevationDeg, 2),
     aos_azimuth_deg: round(c.aosAzimuthDeg, 2),
@@ -99,7 +99,7 @@ export function contactRecord(c: Contact): Record<string, string | number | bool
     rec.volume_bits = Math.round(c.link.volumeBits);
     rec.closed_s = round(c.link.closedS, 1);
     rec.worst_margin_db = round(c.link.worstMarginDb, 2);
-    rec.worst_margin_utc = isoUtc(c.link.worstMarginAtMs, 1);
+    rec.worst_margin_utc = isoUtc(c.link.worstMarginAtMs, 3);
     rec.worst_margin_elevation_deg = round(c.link.worstMarginElevationDeg, 2);
     rec.peak_rate_bps = Math.round(c.link.peakRateBps);
   }

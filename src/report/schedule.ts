@@ -111,14 +111,14 @@ export function renderScheduleCsv(plan: PlanResult, s: ScheduleResult): string {
     return {
       station: c.stationId,
       spacecraft: c.spacecraftId,
-      aos_utc: isoUtc(c.aosMs, 1),
-      los_utc: isoUtc(c.losMs, 1),
+      aos_utc: isoUtc(c.aosMs, 3),
+      los_utc: isoUtc(c.losMs, 3),
       status: t ? 'taken' : 'lost',
       antenna: t ? t.antenna : '',
       volume_bits: c.link?.volumeBits ?? 0,
       weight: t ? t.weight : '',
       reason: l ? l.reason.kind : '',
-      conflicts_with: l ? reasonWith(l.reason).map((r) => `${r.spacecraftId}@${r.stationId} ${isoUtc(r.aosMs, 1)}`).join('; ') : '',
+      conflicts_with: l ? reasonWith(l.reason).map((r) => `${r.spacecraftId}@${r.stationId} ${isoUtc(r.aosMs, 3)}`).join('; ') : '',
     };
   });
   return stringify(rows, {
@@ -129,7 +129,7 @@ export function renderScheduleCsv(plan: PlanResult, s: ScheduleResult): string {
 
 /** The schedule block of plan.json. */
 export function scheduleJson(plan: PlanResult, s: ScheduleResult): Record<string, unknown> {
-  const ref = (r: ContactRef) => ({ station: r.stationId, spacecraft: r.spacecraftId, aos_utc: isoUtc(r.aosMs, 1), los_utc: isoUtc(r.losMs, 1) });
+  const ref = (r: ContactRef) => ({ station: r.stationId, spacecraft: r.spacecraftId, aos_utc: isoUtc(r.aosMs, 3), los_utc: isoUtc(r.losMs, 3) });
   return {
     weight_rule: s.weightRule,
     one_station_at_a_time: s.oneStationAtATime,
@@ -153,15 +153,15 @@ export function scheduleJson(plan: PlanResult, s: ScheduleResult): Record<string
     })),
     taken: s.taken.map((t) => {
       const c = plan.contacts[t.contactIndex]!;
-      return { station: c.stationId, spacecraft: c.spacecraftId, aos_utc: isoUtc(c.aosMs, 1), los_utc: isoUtc(c.losMs, 1), antenna: t.antenna, volume_bits: t.volumeBits };
+      return { station: c.stationId, spacecraft: c.spacecraftId, aos_utc: isoUtc(c.aosMs, 3), los_utc: isoUtc(c.losMs, 3), antenna: t.antenna, volume_bits: t.volumeBits };
     }),
     lost: s.lost.map((l) => {
       const c = plan.contacts[l.contactIndex]!;
       return {
         station: c.stationId,
         spacecraft: c.spacecraftId,
-        aos_utc: isoUtc(c.aosMs, 1),
-        los_utc: isoUtc(c.losMs, 1),
+        aos_utc: isoUtc(c.aosMs, 3),
+        los_utc: isoUtc(c.losMs, 3),
         volume_bits: l.volumeBits,
         reason: l.reason.kind,
         ...(l.reason.kind === 'setup' ? { setup_time_s: l.reason.setupTimeS } : {}),

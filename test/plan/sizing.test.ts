@@ -99,3 +99,34 @@ describe('one-geometry power against evaluateLink', () => {
     expect(res.why).toContain(`${rateBps} bit/s`);
   });
 });
+
+// The "stop the scan with a note" path of week sizing: growing MDL's dish narrows its beam
+// until the 12 (theta/theta3dB)^2 pointing-loss model (valid only inside the 3 dB beamwidth,
+// theta3dB ~ 70 lambda / D: common practice, see src/link/antenna.ts) is asked for outside
+// its range. That is a ModelRangeError kept as such (not a bad-input ScenarioError): the
+// scan ends there with a note, and the unreachable target exits 1, never 2.
+describe('size: a candidate outside a model\'s range ends the scan with a note', () => {
+  it('size --spacecraft-id KESTREL-1 --solve dish --station-id MDL --target-gbit-per-day 100000 --days 1: note, exit 1', async () => {
+    const { run } = await import('../../src/cli/main.js');
+    let out = '';
+    let err = '';
+    const code = await run(
+      ['size', '--spacecraft-id', 'KESTREL-1', '--solve', 'dish', '--station-id', 'MDL', '--target-gbit-per-day', '100000', '--days', '1', '--no-write'],
+      { out: (t) => void (out += t), err: (t) => void (err += t), isTty: false, nowMs: () => 0 },
+    );
+    expect(err).not.toMatch(/^error:/m);
+    expect(code).toBe(1);
+    const m = /Note: stopped at ([\d.]+) m: radio (\S+) at station MDL: pointing loss/.exec(out);
+    expect(m, out).not.toBeNull();
+    // the first scanned dish whose beam is narrower than MDL's 0.08 deg pointing error, for the
+    // highest frequency received there (ANCHOR-G's 20.2 GHz): D > 70 lambda / 0.08 deg, and the
+    // previous scan step (x1/1.25) is not
+    const lambdaM = 299_792_458 / 20.2e9;
+    const dLimitM = (70 * lambdaM) / 0.08;
+    const stopped = Number(m![1]);
+    expect(m![2]).toBe('KA-DATA');
+    expect(stopped).toBeGreaterThan(dLimitM);
+    expect(stopped / 1.25).toBeLessThan(dLimitM);
+    expect(out).toMatch(/Not reachable/);
+  });
+});
