@@ -226,6 +226,12 @@ interface Accumulator {
   binStartMs: number;
   /** Volume per 15-min bin (fractional while integrating). */
   bins: number[];
+  /**
+   * The rate step function as [startMs, endMs, rateBps] triplets (rate > 0 only, adjacent
+   * pieces of one rate merged), kept only for contacts that overlap another contact of
+   * the same spacecraft: the unique-volume rule (unique-volume.ts) needs it there.
+   */
+  pieces: number[] | undefined;
 }
 
 function modcodNameAt(link: PreparedLink, index: number): string {
@@ -293,6 +299,14 @@ function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number,
     acc.closedS += dtS;
     acc.modcodTimeS[acc.modcodBase + (m.stairs.index[step] as number)]! += dtS;
     if (rate > acc.peakRateBps) acc.peakRateBps = rate;
+    const pc = acc.pieces;
+    if (pc !== undefined && rate > 0) {
+      const a = t0 + fa * span;
+      const b = t0 + fb * span;
+      const n = pc.length;
+      if (n >= 3 && pc[n - 1] === rate && pc[n - 2] === a) pc[n - 2] = b;
+      else pc.push(a, b, rate);
+    }
   }
 }
 
@@ -329,6 +343,8 @@ export function integrateContacts(
   setup: LinkSetup,
   settings: LinkSettings,
   stepS: number = DEFAULT_LINK_STEP_S,
+  /** All contacts of the run when `contacts` is a part of them (which ones overlap is decided over these). */
+  overlapContext?: readonly Contact[],
 ): LinkRunStats {
   const stepMs = stepS * 1000;
   const siteIndex = new Map(geometry.sites.map((s, i) => [s.stationId, i]));
@@ -343,6 +359,8 @@ export function integrateContacts(
   let modcodStride = 1;
   for (const l of setup.links.values()) modcodStride = Math.max(modcodStride, l.modcodTable.length);
   const modcodBuffer = new Float64Array(contacts.length * modcodStride);
+  const context = overlapContext ?? contacts;
+  const overlapping = new Set([...contactsOverlappingOwnSpacecraft(context)].map((i) => context[i]!));
   for (let ci = 0; ci < contacts.length; ci++) {
     const c = contacts[ci]!;
     const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
@@ -376,6 +394,7 @@ export function integrateContacts(
       samples: 0,
       binStartMs: Math.floor(c.aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS,
       bins: [],
+      pieces: overlapping.has(c) ? [] : undefined,
     };
     const list = bySpacecraft.get(c.spacecraftId) ?? [];
     list.push(acc);
@@ -445,6 +464,39 @@ export function integrateContacts(
   return stats;
 }
 
+/**
+ * Indices of the contacts in a cluster of overlapping windows of one spacecraft (a chain
+ * of windows each starting before the ones before it have all ended), size 2 or more.
+ */
+export function contactsOverlappingOwnSpacecraft(contacts: readonly Contact[]): Set<number> {
+  const out = new Set<number>();
+  const bySc = new Map<string, number[]>();
+  contacts.forEach((c, i) => {
+    const l = bySc.get(c.spacecraftId);
+    if (l) l.push(i);
+    else bySc.set(c.spacecraftId, [i]);
+  });
+  for (const idx of bySc.values()) {
+    idx.sort((a, b) => contacts[a]!.aosMs - contacts[b]!.aosMs);
+    let reachMs = -Infinity;
+    let cluster: number[] = [];
+    const close = () => {
+      if (cluster.length > 1) for (const j of cluster) out.add(j);
+    };
+    for (const i of idx) {
+      const c = contacts[i]!;
+      if (!(c.aosMs < reachMs)) {
+        close();
+        cluster = [];
+      }
+      cluster.push(i);
+      if (c.losMs > reachMs) reachMs = c.losMs;
+    }
+    close();
+  }
+  return out;
+}
+
 /** Whole bits per bin by rounding the running sum, so the bins add up exactly to the total. */
 export function wholeBitBins(bins: readonly number[]): { bins: number[]; totalBits: number } {
   const out: number[] = [];
@@ -486,5 +538,6 @@ function finish(acc: Accumulator): void {
     binStartMs: acc.binStartMs,
     volumeBinsBits: whole.bins,
   };
+  if (acc.pieces !== undefined) link.ratePieces = acc.pieces;
   acc.contact.link = link;
 }

@@ -3,7 +3,7 @@
  * symbol rate) makes the link reach a target?
  *
  * Week mode (`sizeForWeek`): the smallest value at which one spacecraft's
- * delivered volume over the span, divided by the span's days, reaches a target
+ * delivered volume over the span (its radio's data counted once: unique-volume.ts), divided by the span's days, reaches a target
  * daily volume at the scenario's availability. Geometry (targets, sites,
  * contact windows) and a baseline link run are computed once; each candidate
  * re-runs the link engine (prepareRadioAtStation + integrateContacts) only over
@@ -51,6 +51,7 @@ import { findContacts, prepareGeometry, type Geometry } from './contacts.js';
 import { integrateContacts, linkKey, lowestMaskDeg, prepareLinks, prepareRadioAtStation, type LinkSetup } from './link.js';
 import { maxDepth, scheduleContacts } from './schedule.js';
 import { preparePoint, withOverrides, type LinkOverrides } from './single.js';
+import { uniqueVolumeOf } from './unique-volume.js';
 import { planResult } from './run.js';
 import type { Contact, PlanResult } from './types.js';
 
@@ -173,13 +174,16 @@ function deliveredBits(ctx: SizingContext, spacecraftId: string, cand: Candidate
     setup,
     scenario.link,
     ctx.linkStepS,
+    contacts,
   );
-  if (basis === 'unscheduled') {
-    return contacts.reduce((s, c) => s + (c.spacecraftId === spacecraftId ? (c.link?.volumeBits ?? 0) : 0), 0);
-  }
+  // the spacecraft's volume counts its radio's data once (unique-volume.ts)
+  if (basis === 'unscheduled') return uniqueVolumeOf(spacecraftId, contacts).volumeBits;
   const plan: PlanResult = { ...ctx.basePlan, contacts };
   const sched = scheduleContacts(plan, stations, scenario.spacecraft, { oneStationAtATime: oneStation });
-  return sched.taken.reduce((s, t) => s + (contacts[t.contactIndex]!.spacecraftId === spacecraftId ? t.volumeBits : 0), 0);
+  return uniqueVolumeOf(
+    spacecraftId,
+    sched.taken.map((t) => contacts[t.contactIndex]!),
+  ).volumeBits;
 }
 
 function findSpacecraft(scenario: Scenario, id: string) {

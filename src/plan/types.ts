@@ -28,6 +28,12 @@ export interface ContactLink {
    */
   binStartMs: number;
   volumeBinsBits: number[];
+  /**
+   * The rate as a step function, [startMs, endMs, rateBps] triplets (rate > 0 only), for a
+   * contact that overlaps another contact of the same spacecraft (plan/unique-volume.ts
+   * counts the radio's data once there); absent otherwise.
+   */
+  ratePieces?: number[];
 }
 
 export const VOLUME_BIN_MS = 15 * 60 * 1000;

@@ -8,6 +8,7 @@ import { stringify } from 'csv-stringify/sync';
 import type { PlanResult, Contact } from '../plan/types.js';
 import { isoUtc, isoInZone, formatDuration } from '../time/format.js';
 import { renderTable, fixed, formatBits, type Column } from './table.js';
+import { uniqueVolumes } from '../plan/unique-volume.js';
 
 const round = (v: number, d: number) => (Number.isFinite(v) ? Number(v.toFixed(d)) : null);
 
@@ -60,7 +61,15 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
   }
   const clipped = plan.contacts.some((c) => c.aosClipped || c.losClipped);
   parts.push('');
-  parts.push(`All stations: ${summaryLine(plan.contacts, hasLink)}`);
+  parts.push(`All stations (station sum): ${summaryLine(plan.contacts, hasLink)}`);
+  const once = uniqueVolumes(
+    plan.spacecraft.map((s) => s.id),
+    plan.contacts,
+  );
+  parts.push(
+    `Counted once per spacecraft radio (best station at each instant, union of windows): contact time ${formatDuration(once.reduce((s, u) => s + u.contactTimeS, 0))}` +
+      (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : ''),
+  );
   if (clipped) parts.push('"<" / ">": window cut by the start / end of the span.');
   return parts.join('\n') + '\n';
 }

@@ -7,6 +7,7 @@
 import { stringify } from 'csv-stringify/sync';
 import type { PlanResult } from '../plan/types.js';
 import type { ContactRef, LostReason, ScheduleResult } from '../plan/schedule.js';
+import type { RecorderResult } from '../plan/recorder.js';
 import { isoUtc, isoInZone } from '../time/format.js';
 import { formatBits, renderTable } from './table.js';
 
@@ -39,7 +40,17 @@ export function reasonText(reason: LostReason, zone?: string, max = 2): string {
 const reasonWith = (reason: LostReason): ContactRef[] =>
   reason.kind === 'overlap' || reason.kind === 'setup' ? reason.with : reason.kind === 'one-station' ? [reason.with] : [];
 
-export function renderScheduleTable(plan: PlanResult, s: ScheduleResult, zone?: string): string {
+/** Bits that left each spacecraft's recorder, when recorders were simulated. */
+function deliveredBySpacecraft(recorders: RecorderResult | undefined): Map<string, number> {
+  return new Map((recorders?.tracks ?? []).map((t) => [t.spacecraftId, t.downlinkedBits]));
+}
+
+/**
+ * "offered" and "capacity taken" are link capacity summed over the windows (station sum);
+ * with recorders, "delivered" is what actually left the recorder.
+ */
+export function renderScheduleTable(plan: PlanResult, s: ScheduleResult, zone?: string, recorders?: RecorderResult): string {
+  const delivered = deliveredBySpacecraft(recorders);
   const parts: string[] = [];
   parts.push(`Antenna schedule (${s.weightRule}${s.oneStationAtATime ? `; one station at a time, ${s.rounds} round${s.rounds === 1 ? '' : 's'}` : ''})`);
   parts.push('');
@@ -58,14 +69,15 @@ export function renderScheduleTable(plan: PlanResult, s: ScheduleResult, zone?: 
     ),
   );
   parts.push('');
-  parts.push('Volume per spacecraft');
+  parts.push('Volume per spacecraft (link capacity summed over the windows; delivered: what left the onboard recorder)');
   parts.push(
     renderTable(
       [
         { header: 'spacecraft' },
         { header: 'priority', align: 'right' },
-        { header: 'offered', align: 'right' },
-        { header: 'delivered', align: 'right' },
+        { header: 'capacity offered', align: 'right' },
+        { header: 'capacity taken', align: 'right' },
+        { header: 'delivered (recorder)', align: 'right' },
         { header: 'lost to conflicts', align: 'right' },
         { header: 'windows taken', align: 'right' },
         { header: 'windows lost', align: 'right' },
@@ -75,6 +87,7 @@ export function renderScheduleTable(plan: PlanResult, s: ScheduleResult, zone?: 
         String(r.priority),
         formatBits(r.offeredBits),
         formatBits(r.deliveredBits),
+        delivered.has(r.spacecraftId) ? formatBits(delivered.get(r.spacecraftId)!) : '-',
         r.offeredBits > 0 ? `${formatBits(r.lostBits)} (${((100 * r.lostBits) / r.offeredBits).toFixed(1)} %)` : formatBits(r.lostBits),
         String(r.takenWindows),
         String(r.lostWindows),
@@ -128,7 +141,8 @@ export function renderScheduleCsv(plan: PlanResult, s: ScheduleResult): string {
 }
 
 /** The schedule block of plan.json. */
-export function scheduleJson(plan: PlanResult, s: ScheduleResult): Record<string, unknown> {
+export function scheduleJson(plan: PlanResult, s: ScheduleResult, recorders?: RecorderResult): Record<string, unknown> {
+  const delivered = deliveredBySpacecraft(recorders);
   const ref = (r: ContactRef) => ({ station: r.stationId, spacecraft: r.spacecraftId, aos_utc: isoUtc(r.aosMs, 3), los_utc: isoUtc(r.losMs, 3) });
   return {
     weight_rule: s.weightRule,
@@ -145,8 +159,9 @@ export function scheduleJson(plan: PlanResult, s: ScheduleResult): Record<string
     spacecraft: s.spacecraft.map((r) => ({
       spacecraft: r.spacecraftId,
       priority: r.priority,
-      offered_bits: r.offeredBits,
-      delivered_bits: r.deliveredBits,
+      capacity_offered_bits: r.offeredBits,
+      capacity_taken_bits: r.deliveredBits,
+      ...(delivered.has(r.spacecraftId) ? { delivered_from_recorder_bits: delivered.get(r.spacecraftId)! } : {}),
       lost_to_conflicts_bits: r.lostBits,
       windows_taken: r.takenWindows,
       windows_lost: r.lostWindows,

@@ -9,6 +9,7 @@ import { loadScenario } from '../../src/scenario/load.js';
 import { demoFiles } from '../../src/scenario/paths.js';
 import { runPlan } from '../../src/plan/run.js';
 import { scheduleContacts } from '../../src/plan/schedule.js';
+import { uniqueVolumeOf } from '../../src/plan/unique-volume.js';
 import { pointLink, prepareSizingContext, sizeForWeek, sizePowerAtGeometry, type VolumeBasis } from '../../src/plan/sizing.js';
 import { evaluateLink } from '../../src/link/budget.js';
 import { newLinkSample } from '../../src/link/types.js';
@@ -26,9 +27,9 @@ function withRadio(s: Scenario, id: string, edit: (r: Radio) => Radio): Scenario
 /** Delivered bits per day of one spacecraft, by the whole pipeline from scratch. */
 function deliveredPerDay(s: Scenario, id: string, basis: VolumeBasis): number {
   const plan = runPlan(s, span, { linkStepS: STEP_S });
-  if (basis === 'unscheduled') return plan.contacts.filter((c) => c.spacecraftId === id).reduce((a, c) => a + (c.link?.volumeBits ?? 0), 0);
+  if (basis === 'unscheduled') return uniqueVolumeOf(id, plan.contacts).volumeBits;
   const sched = scheduleContacts(plan, s.stations, s.spacecraft);
-  return sched.taken.filter((t) => plan.contacts[t.contactIndex]!.spacecraftId === id).reduce((a, t) => a + t.volumeBits, 0);
+  return uniqueVolumeOf(id, sched.taken.map((t) => plan.contacts[t.contactIndex]!)).volumeBits;
 }
 
 describe('week sizing round trips (first demo day)', () => {
