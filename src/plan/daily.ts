@@ -22,7 +22,7 @@ import { DateTime } from 'luxon';
 import { ModelRangeError } from '../errors.js';
 import type { Span } from '../scenario/types.js';
 import { VOLUME_BIN_MS, type Contact, type PlanResult } from './types.js';
-import { uniqueBitsIn, uniqueVolumes } from './unique-volume.js';
+import { uniqueBitsIn, uniqueVolumeOf, uniqueVolumes } from './unique-volume.js';
 
 export type DayMode = { kind: 'utc' } | { kind: 'local' };
 
@@ -58,6 +58,8 @@ export interface SpacecraftTotal {
   stationSumVolumeBits: number;
   /** With a recorder simulated: what actually left the recorder (volumeBits is then link capacity). */
   deliveredBits?: number;
+  /** The spacecraft's other radios (not the data downlink), each its own volume counted once. */
+  otherRadios?: { radioId: string; volumeBits: number; stationSumVolumeBits: number }[];
 }
 
 /** One UTC day's total over all stations, the radio's data counted once. */
@@ -199,6 +201,18 @@ export function spacecraftTotals(plan: PlanResult, delivered?: ReadonlyMap<strin
     };
     const d = delivered?.get(u.spacecraftId);
     if (d !== undefined) t.deliveredBits = d;
+    const mine = plan.contacts.filter((c) => c.spacecraftId === u.spacecraftId && c.otherLinks);
+    const radioIds = [...new Set(mine.flatMap((c) => c.otherLinks!.map((l) => l.radioId)))];
+    if (radioIds.length > 0) {
+      t.otherRadios = radioIds.map((radioId) => {
+        const asData = mine.flatMap((c) => {
+          const l = c.otherLinks!.find((x) => x.radioId === radioId);
+          return l ? [{ ...c, link: l }] : [];
+        });
+        const v = uniqueVolumeOf(u.spacecraftId, asData);
+        return { radioId, volumeBits: v.volumeBits, stationSumVolumeBits: v.stationSumBits };
+      });
+    }
     return t;
   });
 }

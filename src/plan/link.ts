@@ -2,7 +2,10 @@
  * The link engine over the contacts: a budget at every time step inside every
  * contact, and the data volume each contact carries.
  *
- * Which radio: a spacecraft's first radio (radios[0]) is its data downlink.
+ * Which radio: a spacecraft's first radio (radios[0]) is its data downlink (the file's
+ * dataRadio is put first); every other radio gets its own volume too (Contact.otherLinks).
+ * Which feed: a radio links at a station through the station feed covering its frequency
+ * (scenario/feeds.ts); with none, the pair keeps its windows but has no link (one warning).
  * Sampling: per spacecraft, one common grid span.start + k * stepS; the target
  * is propagated once per grid time and that state serves every station in
  * contact then. Each contact is also evaluated at its own data start and end.
@@ -33,6 +36,7 @@ import { modcodStaircase, stepAt, type ModcodStaircase } from '../link/modcod/ac
 import type { LinkSettings, Radio, Scenario, Station } from '../scenario/types.js';
 import type { Geometry } from './contacts.js';
 import { ModelRangeError } from '../errors.js';
+import { feedFor, stationThroughFeed } from '../scenario/feeds.js';
 import { VOLUME_BIN_MS, type Contact, type ContactLink } from './types.js';
 
 /** Frequency above which a missing rain climate is worth a warning, Hz. */
@@ -47,6 +51,8 @@ export const DEFAULT_LINK_STEP_S = 30;
 export interface LinkSetup {
   /** PreparedLink by `${spacecraftId}|${stationId}` for the data radio. */
   links: Map<string, PreparedLink>;
+  /** The other radios' links: index r - 1 holds radios[r]'s, by `${spacecraftId}|${stationId}`. */
+  otherLinks?: Map<string, PreparedLink>[];
   warnings: string[];
 }
 
@@ -90,6 +96,16 @@ export function lowestMaskDeg(station: Station): number {
   return Math.max(0, lowest);
 }
 
+/** True when a feed of the station covers the radio's frequency (scenario/feeds.ts). */
+export function radioHeardAt(station: Station, radio: Radio): boolean {
+  return feedFor(station, radio.frequencyHz) !== undefined;
+}
+
+/** The one warning for a pair whose station has no feed for the radio's frequency. */
+export function noFeedWarning(station: Station, spacecraftId: string, radio: Radio): string {
+  return `${station.id}: no feed covers ${(radio.frequencyHz / 1e9).toPrecision(6)} GHz (radio ${radio.id} of ${spacecraftId}): its windows there carry no link`;
+}
+
 /** Builds the prepared budget of one radio at one station (atmosphere tables included). */
 export function prepareRadioAtStation(
   radio: Radio,
@@ -100,7 +116,9 @@ export function prepareRadioAtStation(
   tableCache?: Map<string, AtmosphereTable>,
 ): PreparedLink {
   try {
-    return prepareRadioAtStationUnnamed(radio, station, site, settings, minElevationDeg, tableCache);
+    // the receiver of the feed that hears the radio (callers check radioHeardAt first)
+    const heard = stationThroughFeed(station, radio.frequencyHz) ?? station;
+    return prepareRadioAtStationUnnamed(radio, heard, site, settings, minElevationDeg, tableCache);
   } catch (err) {
     // A model asked for outside its range (a frequency above P.618's 55 GHz, a pointing
     // error wider than the beam) stays a ModelRangeError (sizing ends its scan on one),
@@ -141,6 +159,7 @@ function prepareRadioAtStationUnnamed(
 
 export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup {
   const links = new Map<string, PreparedLink>();
+  const otherLinks: Map<string, PreparedLink>[] = [];
   const warnings: string[] = [];
   const warnedRain = new Set<string>();
   // The atmosphere depends on the station, frequency, polarisation and availability only:
@@ -149,17 +168,26 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup 
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
     for (const sc of scenario.spacecraft) {
-      const radio = sc.radios[0];
-      if (!radio) continue;
-      const input = atmosphereInputFor(station, radio, scenario.link);
-      if (!rainModelled(input) && radio.frequencyHz > RAIN_WARNING_ABOVE_HZ && !warnedRain.has(station.id)) {
-        warnedRain.add(station.id);
-        warnings.push(`${station.id}: no rain climate (rainRate001MmH, rainHeightKm); the rain term is not modelled above ${RAIN_WARNING_ABOVE_HZ / 1e9} GHz`);
-      }
-      links.set(linkKey(sc.id, station.id), prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station), tables));
+      sc.radios.forEach((radio, r) => {
+        if (!radioHeardAt(station, radio)) {
+          warnings.push(noFeedWarning(station, sc.id, radio));
+          return;
+        }
+        const input = atmosphereInputFor(station, radio, scenario.link);
+        if (!rainModelled(input) && radio.frequencyHz > RAIN_WARNING_ABOVE_HZ && !warnedRain.has(station.id)) {
+          warnedRain.add(station.id);
+          warnings.push(`${station.id}: no rain climate (rainRate001MmH, rainHeightKm); the rain term is not modelled above ${RAIN_WARNING_ABOVE_HZ / 1e9} GHz`);
+        }
+        const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station), tables);
+        if (r === 0) links.set(linkKey(sc.id, station.id), link);
+        else {
+          while (otherLinks.length < r) otherLinks.push(new Map());
+          otherLinks[r - 1]!.set(linkKey(sc.id, station.id), link);
+        }
+      });
     }
   });
-  return { links, warnings };
+  return { links, ...(otherLinks.length > 0 ? { otherLinks } : {}), warnings };
 }
 
 /**
@@ -495,6 +523,40 @@ export function contactsOverlappingOwnSpacecraft(contacts: readonly Contact[]): 
     close();
   }
   return out;
+}
+
+/**
+ * Fills `contact.otherLinks` for the spacecraft's other radios (setup.otherLinks): each
+ * radio's volume over the same windows, by the same engine (one run per radio index).
+ */
+export function integrateOtherRadios(
+  contacts: Contact[],
+  geometry: Geometry,
+  setup: LinkSetup,
+  settings: LinkSettings,
+  stepS: number = DEFAULT_LINK_STEP_S,
+): LinkRunStats {
+  const stats: LinkRunStats = { linkSamples: 0, propagations: 0 };
+  for (const links of setup.otherLinks ?? []) {
+    const pairs: { original: Contact; copy: Contact }[] = [];
+    for (const c of contacts) {
+      if (!links.has(linkKey(c.spacecraftId, c.stationId))) continue;
+      const { link: _l, otherLinks: _o, ...bare } = c;
+      pairs.push({ original: c, copy: bare as Contact });
+    }
+    if (pairs.length === 0) continue;
+    const s = integrateContacts(
+      pairs.map((p) => p.copy),
+      geometry,
+      { links, warnings: [] },
+      settings,
+      stepS,
+    );
+    stats.linkSamples += s.linkSamples;
+    stats.propagations += s.propagations;
+    for (const p of pairs) if (p.copy.link) (p.original.otherLinks ??= []).push(p.copy.link);
+  }
+  return stats;
 }
 
 /** Whole bits per bin by rounding the running sum, so the bins add up exactly to the total. */

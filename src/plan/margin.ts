@@ -39,7 +39,8 @@
  * - Result: 'pass' / 'fail' by the margin at the check elevation; a pair with no contact
  *   in the span (the spacecraft never rises over that station's mask) is 'not visible':
  *   neither pass nor fail, and it does not set the exit code. A spacecraft with no orbit
- *   state in the span fails (a gate must not pass silently).
+ *   state in the span fails (a gate must not pass silently). A pair whose station has no
+ *   feed covering the radio's frequency has no link to check: 'no feed', neither pass nor fail.
  * Pure: no I/O.
  */
 import { ModelRangeError } from '../errors.js';
@@ -50,7 +51,7 @@ import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { LinkSettings, Scenario, Span, Station } from '../scenario/types.js';
 import { prepareGeometry } from './contacts.js';
-import { lowestMaskDeg, prepareRadioAtStation } from './link.js';
+import { lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
 import type { PlanResult } from './types.js';
 
 /** Sampling step of the largest-distance search, s (a LEO period is ~5,700 s). */
@@ -92,7 +93,7 @@ export interface MarginRow {
   result: MarginResult;
 }
 
-export type MarginResult = 'pass' | 'fail' | 'not visible';
+export type MarginResult = 'pass' | 'fail' | 'not visible' | 'no feed';
 
 /** True when no row fails ('not visible' rows neither pass nor fail). */
 export function marginGatePasses(rows: readonly MarginRow[]): boolean {
@@ -270,6 +271,26 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
         continue;
       }
       const contacts = plan.contacts.filter((c) => c.stationId === station.id && c.spacecraftId === sc.id);
+      if (!radioHeardAt(station, radio)) {
+        rows.push({
+          station: station.id,
+          spacecraft: sc.id,
+          radioId: radio.id,
+          maskElevationDeg: maskCheckDeg,
+          maxRadiusKm: far.radiusKm,
+          maxRadiusAtMs: far.atMs,
+          worstRangeKm: Number.NaN,
+          maskMarginDb: Number.NaN,
+          maskModcod: 'no feed covers the radio',
+          maskRateBps: 0,
+          usableMaskDeg: null,
+          worstSeenMarginDb: null,
+          contacts: contacts.length,
+          pass: false,
+          result: 'no feed',
+        });
+        continue;
+      }
       let elevationDeg = maskCheckDeg;
       const target = geometry.targets.get(sc.id);
       if (target && contacts.length > 0 && contacts.every((c) => c.aosClipped && c.losClipped)) {

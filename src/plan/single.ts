@@ -17,7 +17,7 @@ import type { AtmosphereResult, AtmosphereTable } from '../link/atmosphere/types
 import type { BudgetTerm, PreparedLink } from '../link/types.js';
 import { skyNoiseTemperatureK } from '../link/atmosphere/sky-noise.js';
 import type { Radio, Scenario, Spacecraft } from '../scenario/types.js';
-import { lowestMaskDeg, prepareRadioAtStation } from './link.js';
+import { lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
 
 export const MOON_MEAN_DISTANCE_KM = 384_400;
 
@@ -139,6 +139,9 @@ export function preparePoint(scenario: Scenario, req: PointRequest, command: str
   const elevationDeg = req.elevationDeg ?? elevationForRangeDeg(stationRadiusKm, orbitRadiusKm, req.rangeKm!);
   const rangeKm = req.rangeKm ?? slantRangeKm(stationRadiusKm, orbitRadiusKm, elevationDeg);
   const minEl = Math.min(lowestMaskDeg(station), Math.max(0, elevationDeg));
+  if (!radioHeardAt(station, radio)) {
+    throw new UsageError(`${command}: no feed of station ${station.id} covers ${(radio.frequencyHz / 1e6).toFixed(3)} MHz (radio ${radio.id} of ${sc.id}); there is no link to budget`);
+  }
   const link = prepareRadioAtStation(radio, station, site, scenario.link, minEl);
   return { sc, radio, link, look: { azimuthDeg: 0, elevationDeg, rangeKm, rangeRateKmS: 0 }, orbitRadiusKm };
 }

@@ -48,7 +48,7 @@ import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type PreparedLink } from '../link/types.js';
 import type { Radio, Scenario, Span, Station } from '../scenario/types.js';
 import { findContacts, prepareGeometry, type Geometry } from './contacts.js';
-import { integrateContacts, linkKey, lowestMaskDeg, prepareLinks, prepareRadioAtStation, type LinkSetup } from './link.js';
+import { integrateContacts, linkKey, lowestMaskDeg, prepareLinks, prepareRadioAtStation, radioHeardAt, type LinkSetup } from './link.js';
 import { maxDepth, scheduleContacts } from './schedule.js';
 import { preparePoint, withOverrides, type LinkOverrides } from './single.js';
 import { uniqueVolumeOf } from './unique-volume.js';
@@ -155,7 +155,7 @@ function deliveredBits(ctx: SizingContext, spacecraftId: string, cand: Candidate
     for (const sc of scenario.spacecraft) {
       const isTarget = sc.id === spacecraftId;
       const radio = isTarget && cand.radio ? cand.radio : sc.radios[0];
-      if (!radio) continue;
+      if (!radio || !radioHeardAt(st, radio)) continue;
       const changed = (isTarget && cand.radio !== undefined) || stationChanged;
       if (!changed) continue;
       if (!isTarget && basis === 'unscheduled') continue; // other spacecraft do not count then
@@ -210,7 +210,16 @@ function withDish(st: Station, diameterM: number): Station {
   const rx = st.receiver;
   if (rx.kind !== 'chain') throw new UsageError(`--solve dish: station ${st.id} states a G/T; sizing its dish needs a receive chain (noise temperature or figure)`);
   const { gainDbi: _g, ...rest } = rx;
-  return { ...st, receiver: { ...rest, dishDiameterM: diameterM } };
+  const dish = (r: Station['receiver']): Station['receiver'] => {
+    if (r.kind !== 'chain') return r;
+    const { gainDbi: _h, ...other } = r;
+    return { ...other, dishDiameterM: diameterM };
+  };
+  return {
+    ...st,
+    receiver: { ...rest, dishDiameterM: diameterM },
+    ...(st.feeds ? { feeds: st.feeds.map((f) => ({ ...f, receiver: dish(f.receiver) })) } : {}),
+  };
 }
 
 /** Week mode (see the head comment). */

@@ -40,7 +40,10 @@ export const VOLUME_BIN_MS = 15 * 60 * 1000;
 
 export interface Contact extends Pass {
   durationS: number;
+  /** The data downlink's link (radios[0]); absent without a radio or a feed for it. */
   link?: ContactLink;
+  /** The spacecraft's other radios, each with its own volume (radios[1..] heard by a feed). */
+  otherLinks?: ContactLink[];
 }
 
 export interface PlanResult {

@@ -11,7 +11,7 @@ import { renderTable, formatBits, type Column } from './table.js';
 
 const round1 = (v: number) => Number(v.toFixed(1));
 
-export type DailyRecord = Record<string, string | number | boolean>;
+export type DailyRecord = Record<string, string | number | boolean | Record<string, string | number>[]>;
 
 export function dailyRecord(r: DailyRow): DailyRecord {
   return {
@@ -43,7 +43,10 @@ export function spacecraftTotalRecord(t: SpacecraftTotal): DailyRecord {
     station_sum_contact_time_s: round1(t.stationSumContactTimeS),
     station_sum_volume_bits: t.stationSumVolumeBits,
     ...(t.deliveredBits !== undefined ? { delivered_bits: t.deliveredBits } : {}),
-  };
+    ...(t.otherRadios
+      ? { other_radios: t.otherRadios.map((r) => ({ radio: r.radioId, volume_bits: r.volumeBits, station_sum_volume_bits: r.stationSumVolumeBits })) }
+      : {}),
+  } as DailyRecord;
 }
 
 /** One UTC day over all stations: volume counted once, and the station-sum. */
@@ -148,5 +151,7 @@ export function renderDailyTable(rows: readonly DailyRow[], mode: DayMode, total
     ),
   );
   if (recorder) parts.push('"link capacity": what the links could carry; "delivered": what left the onboard recorder (spacecraft without a recorder: "-").');
+  const others = totals.flatMap((t) => (t.otherRadios ?? []).map((r) => `${t.spacecraftId} ${r.radioId} ${formatBits(r.volumeBits)} (station sum ${formatBits(r.stationSumVolumeBits)})`));
+  if (others.length > 0) parts.push(`Other radios (each its own volume, counted once): ${others.join('; ')}`);
   return parts.join('\n') + '\n';
 }

@@ -19,7 +19,7 @@ const round = (v: number | null, d: number): number | null => (v !== null && Num
 
 /** PASS, FAIL or "not visible" (a pair with no contact in the span). */
 export function resultText(r: MarginRow): string {
-  return r.result === 'pass' ? 'PASS' : r.result === 'fail' ? 'FAIL' : 'not visible';
+  return r.result === 'pass' ? 'PASS' : r.result === 'fail' ? 'FAIL' : r.result;
 }
 
 function usableText(r: MarginRow): string {
@@ -63,7 +63,7 @@ export function renderMarginTable(report: MarginReport): string {
     `(margin net of each radio's required margin, at the lowest mask elevation and the longest slant range the orbit reaches there)\n\n` +
     renderTable(cols, body) +
     `\n\n${passed} pass, ${failed} fail` +
-    (hidden > 0 ? `, ${hidden} not visible (no contact in the span: neither pass nor fail)` : '') +
+    (hidden > 0 ? `, ${hidden} not graded (not visible: no contact in the span; no feed: the station cannot hear the radio)` : '') +
     '\n'
   );
 }

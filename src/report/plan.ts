@@ -125,6 +125,16 @@ export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> 
     contacts: plan.contacts.map((c) => ({
       ...contactRecord(c),
       ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
+      ...(c.otherLinks
+        ? {
+            other_radios: c.otherLinks.map((l) => ({
+              radio: l.radioId,
+              volume_bits: l.volumeBits,
+              worst_margin_db: round(l.worstMarginDb, 2),
+              peak_rate_bps: Math.round(l.peakRateBps),
+            })),
+          }
+        : {}),
     })),
     ...extra,
     warnings: plan.warnings,
