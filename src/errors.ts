@@ -25,16 +25,30 @@ export class ScenarioError extends Error {
   }
 }
 
-/** A model asked for outside the range where it is valid (e.g. P.618 above 55 GHz). */
+/**
+ * A model asked for outside the range where it is valid (e.g. P.618 above 55 GHz).
+ * `context` says where it was asked for (e.g. "radio X-DATA at station EQP"), as data:
+ * callers that add it keep the class, so a caller up the stack can still tell a model's
+ * range from a bad file.
+ */
 export class ModelRangeError extends Error {
   constructor(
     readonly model: string,
     readonly field: string,
     readonly value: number,
     readonly valid: string,
+    readonly context?: string,
   ) {
-    super(`${model}: ${field} = ${value} is outside its valid range (${valid})`);
+    super(`${context ? `${context}: ` : ''}${model}: ${field} = ${value} is outside its valid range (${valid})`);
     this.name = 'ModelRangeError';
+  }
+
+  /** The same error with `context` set (the innermost context is kept when one is already there). */
+  withContext(context: string): ModelRangeError {
+    if (this.context !== undefined) return this;
+    const e = new ModelRangeError(this.model, this.field, this.value, this.valid, context);
+    if (this.stack !== undefined) e.stack = this.stack;
+    return e;
   }
 }
 

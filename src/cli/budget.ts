@@ -25,6 +25,7 @@ interface Raw {
   atmosphereDb?: string;
   pointingLossDb?: string;
   extraLossDb?: string;
+  gOverTDbK?: string;
   format: 'table' | 'json';
 }
 
@@ -39,9 +40,10 @@ export function registerBudget(program: Command, io: CliIo, setExit: SetExit): v
     .option('--radio-id <id>', 'radio of the spacecraft (default: its first)')
     .option('--elevation <deg>', 'elevation, deg (0..90)')
     .option('--range-km <km>', 'slant range, km')
-    .option('--atmosphere-db <dB>', 'replace the ITU-R atmosphere by this total, dB (to follow a handbook budget)')
+    .option('--atmosphere-db <dB>', 'replace the ITU-R atmosphere by this total, dB (to follow a handbook budget); the sky noise follows from it (ITU-R P.618 sec. 3)')
     .option('--pointing-loss-db <dB>', 'replace the computed pointing loss, dB')
     .option('--extra-loss-db <dB>', 'other losses to include, dB (e.g. a receive feeder loss)')
+    .option('--g-over-t-db-k <dB/K>', "replace the computed G/T by this figure, dB/K (a handbook's G/T for the budget's conditions)")
     .addOption(new Option('--format <format>', 'output format').choices(['table', 'json']).default('table'))
     .action((raw: Raw) => {
       const demo = demoFiles();
@@ -58,6 +60,8 @@ export function registerBudget(program: Command, io: CliIo, setExit: SetExit): v
       if (atm !== undefined) req.atmosphereDb = atm;
       if (point !== undefined) req.pointingLossDb = point;
       if (extra !== undefined) req.extraLossDb = extra;
+      const gt = num('--g-over-t-db-k', raw.gOverTDbK, -40, 70);
+      if (gt !== undefined) req.gOverTDbK = gt;
       const b = singleBudget(scenario, req);
       io.out(raw.format === 'json' ? renderBudgetJson(b) : renderBudgetTable(b));
       setExit(0);

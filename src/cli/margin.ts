@@ -7,7 +7,7 @@ import type { Command } from 'commander';
 import { loadScenario } from '../scenario/load.js';
 import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
-import { marginRows } from '../plan/margin.js';
+import { marginGatePasses, marginRows } from '../plan/margin.js';
 import { renderMarginCsv, renderMarginJson, renderMarginTable, type MarginReport } from '../report/margin.js';
 import { writeOutputs } from '../report/write.js';
 import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
@@ -41,6 +41,7 @@ export function registerMargin(program: Command, io: CliIo, setExit: SetExit): v
       if (opts.format === 'table') io.out(`\nwrote ${written.join(', ')}\n`);
     }
     // 1: a requirement failed (main.ts EXIT_REQUIREMENT_FAILED); 0: ok
-    setExit(report.rows.every((r) => r.pass) ? 0 : 1);
+    // 'not visible' rows (no contact in the span) neither pass nor fail
+    setExit(marginGatePasses(report.rows) ? 0 : 1);
   });
 }

@@ -5,9 +5,9 @@ import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
 import { renderPlanTable, renderPlanJson, renderPlanCsv } from '../report/plan.js';
 import { writeOutputs } from '../report/write.js';
-import { dailyTotals, spacecraftTotals, type DayMode } from '../plan/daily.js';
+import { allStationsDaily, dailyTotals, spacecraftTotals, type DayMode } from '../plan/daily.js';
 import { highestVolumeContacts, seriesForContacts } from '../plan/series.js';
-import { dailyRecord, renderDailyCsv, renderDailyTable, spacecraftTotalRecord } from '../report/daily.js';
+import { allStationsDayRecord, dailyRecord, renderDailyCsv, renderDailyTable, spacecraftTotalRecord } from '../report/daily.js';
 import { renderCalendars } from '../report/calendar.js';
 import { renderReportHtml } from '../report/html/index.js';
 import { scheduleContacts, scheduledPlan } from '../plan/schedule.js';
@@ -50,17 +50,21 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       const recorders = schedule ? simulateRecorders(unscheduled, scenario.spacecraft, schedule) : undefined;
       const plan = schedule ? scheduledPlan(unscheduled, schedule) : unscheduled;
       const daily = dailyTotals(plan, dayMode);
-      const totals = spacecraftTotals(plan);
+      // with a recorder, delivered = what left the recorder; the link volume is capacity
+      const delivered = recorders ? new Map(recorders.tracks.map((t) => [t.spacecraftId, t.downlinkedBits])) : undefined;
+      const totals = spacecraftTotals(plan, delivered);
+      const allStations = dayMode.kind === 'utc' ? allStationsDaily(plan, daily) : undefined;
       const json = renderPlanJson(plan, {
         daily: daily.map(dailyRecord),
+        ...(allStations ? { daily_all_stations: allStations.map(allStationsDayRecord) } : {}),
         spacecraft_totals: totals.map(spacecraftTotalRecord),
-        ...(schedule && recorders ? { schedule: scheduleJson(unscheduled, schedule), recorder: recorderJson(recorders) } : {}),
+        ...(schedule && recorders ? { schedule: scheduleJson(unscheduled, schedule, recorders), recorder: recorderJson(recorders) } : {}),
       });
       const csv = renderPlanCsv(plan);
       if (opts.format === 'json') io.out(json);
       else if (opts.format === 'csv') io.out(csv);
-      else io.out(renderPlanTable(plan, opts.zone) + '\n' + renderDailyTable(daily, dayMode, totals));
-      if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone) + '\n' + renderRecorderTable(recorders));
+      else io.out(renderPlanTable(plan, opts.zone) + '\n' + renderDailyTable(daily, dayMode, totals, allStations));
+      if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone, recorders) + '\n' + renderRecorderTable(recorders));
       for (const w of plan.warnings) io.err(`warning: ${w}\n`);
       if (opts.write) {
         const written = await writeOutputs(opts.outDir, [
@@ -89,6 +93,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
                 maskMarginDb: m.maskMarginDb,
                 worstSeenMarginDb: m.worstSeenMarginDb ?? Number.NaN,
                 pass: m.pass,
+                notVisible: m.result === 'not visible',
               })),
               ...(recorders ? { recorderSvg: renderRecorderSvg(recorders) } : {}),
             }),

@@ -34,6 +34,9 @@ interface SizeRaw {
   elevation?: string;
   rangeKm?: string;
   targetRateBps?: string;
+  atmosphereDb?: string;
+  pointingLossDb?: string;
+  extraLossDb?: string;
 }
 
 export function registerSize(program: Command, io: CliIo, setExit: SetExit): void {
@@ -56,6 +59,9 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
     .option('--elevation <deg>', 'one-geometry mode: elevation, deg')
     .option('--range-km <km>', 'one-geometry mode: slant range, km')
     .option('--target-rate-bps <R>', 'one-geometry mode: information rate to carry, bit/s')
+    .option('--atmosphere-db <dB>', 'one-geometry mode: replace the ITU-R atmosphere by this total, dB (sky noise follows from it, ITU-R P.618 sec. 3)')
+    .option('--pointing-loss-db <dB>', 'one-geometry mode: replace the computed pointing loss, dB')
+    .option('--extra-loss-db <dB>', 'one-geometry mode: other losses to include, dB')
     .action(async (raw: Parameters<typeof readCommonOptions>[0] & SizeRaw) => {
       const opts = readCommonOptions(raw);
       if (opts.format === 'csv') throw new UsageError('--format: size prints table or json');
@@ -75,12 +81,21 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
         const range = num('--range-km', raw.rangeKm, 1, 1e10);
         if (el !== undefined) req.elevationDeg = el;
         if (range !== undefined) req.rangeKm = range;
+        const atm = num('--atmosphere-db', raw.atmosphereDb, 0, 100);
+        const point = num('--pointing-loss-db', raw.pointingLossDb, 0, 50);
+        const extra = num('--extra-loss-db', raw.extraLossDb, 0, 100);
+        if (atm !== undefined) req.atmosphereDb = atm;
+        if (point !== undefined) req.pointingLossDb = point;
+        if (extra !== undefined) req.extraLossDb = extra;
         if (raw.solve !== 'power') throw new UsageError('--solve: one-geometry mode sizes the transmit power only');
         const res = sizePowerAtGeometry(scenario, req);
         text = renderPointSizingText(res);
         json = pointSizingJson(res);
         reached = res.requiredPowerDbw !== null;
       } else if (target !== undefined) {
+        for (const [flag, v] of [['--atmosphere-db', raw.atmosphereDb], ['--pointing-loss-db', raw.pointingLossDb], ['--extra-loss-db', raw.extraLossDb]] as const) {
+          if (v !== undefined) throw new UsageError(`${flag}: only in one-geometry mode (--target-rate-bps with --elevation/--range-km); week mode runs the modelled budget`);
+        }
         const span = spanFor(opts, scenario, io);
         assertPreflight(scenario, span);
         const ctx = prepareSizingContext(scenario, span, opts.stepS ?? DEFAULT_SIZING_LINK_STEP_S);

@@ -87,8 +87,10 @@ class PassSearch {
   private readonly refState = new Float64Array(6);
   private readonly refLook = newLook();
   private readonly maxOut: MaxResult = { x: 0, f: 0 };
-  // memo of refinement evaluations (to read az/el at a solver's answer)
+  // memo of refinement evaluations (to read az/el at a solver's answer), keyed by
+  // time AND site: the same instant (a span edge) is evaluated for several sites
   private readonly memoT: Float64Array;
+  private readonly memoSite: Int32Array;
   private readonly memoAz: Float64Array;
   private readonly memoEl: Float64Array;
   private memoN = 0;
@@ -133,6 +135,7 @@ class PassSearch {
     this.times = Float64Array.from(t);
     const memoSize = 2 * this.maxIter + 8;
     this.memoT = new Float64Array(memoSize);
+    this.memoSite = new Int32Array(memoSize);
     this.memoAz = new Float64Array(memoSize);
     this.memoEl = new Float64Array(memoSize);
     const n = this.nSites;
@@ -158,6 +161,7 @@ class PassSearch {
     const m = this.memoN % this.memoT.length;
     this.memoN++;
     this.memoT[m] = tMs;
+    this.memoSite[m] = this.curSite;
     if (!this.target.stateEcefAt(tMs, this.refState)) {
       this.memoAz[m] = 0;
       this.memoEl[m] = NO_STATE_G;
@@ -175,9 +179,10 @@ class PassSearch {
   private lookAt(tMs: number): void {
     const size = this.memoT.length;
     const first = Math.max(0, this.memoN - size);
+    const site = this.curSite;
     for (let j = this.memoN - 1; j >= first; j--) {
       const m = j % size;
-      if (this.memoT[m] === tMs) {
+      if (this.memoT[m] === tMs && this.memoSite[m] === site) {
         this.refLook.azimuthDeg = this.memoAz[m]!;
         this.refLook.elevationDeg = this.memoEl[m]!;
         return;
@@ -411,6 +416,8 @@ class PassSearch {
       maxElevationDeg: maxEl,
       aosAzimuthDeg: aosAz,
       losAzimuthDeg: losAz,
+      aosElevationDeg: aosEl,
+      losElevationDeg: losEl,
       aosClipped,
       losClipped,
       losTrackEnded: trackEnded,

@@ -55,6 +55,9 @@ export interface Pass {
   maxElevationDeg: number;
   aosAzimuthDeg: number;
   losAzimuthDeg: number;
+  /** Elevation at AOS and LOS, deg (the contact search fills them; the slow reference may not). */
+  aosElevationDeg?: number;
+  losElevationDeg?: number;
   /** True when the window was cut by the start (AOS) or end (LOS) of the span. */
   aosClipped: boolean;
   losClipped: boolean;

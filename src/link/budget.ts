@@ -11,7 +11,8 @@
  *   fixed:    Eb/N0 = C/N0 - 10 log10 Rb; Es/N0 = Eb/N0 + 10 log10 eta;
  *             margin = Eb/N0 - L_impl - threshold - required margin; rate = Rb if margin >= 0
  *   adaptive: Es/N0 = C/N0 - 10 log10 Rs; entry = bestModcod(Es/N0 - L_impl, required);
- *             margin = Es/N0 - L_impl - threshold(entry or lowest) - required;
+ *             margin = Es/N0 - L_impl - threshold(entry or lowest) - required (over the entry in use);
+ *             closure margin = Es/N0 - L_impl - threshold(most robust entry) - required;
  *             rate = eta(entry) Rs, 0 when none closes                  modcod/acm.ts
  *   Shannon   = B log2(1 + (C/N0)/B), B = Rs (1 + rolloff)             modcod/shannon.ts
  *   Doppler   = -f v_r / c                                             doppler.ts
@@ -236,6 +237,7 @@ export function prepareLink(
     pointingLossDb: pLossDb,
     polarizationLossDb: polLossDb,
     extraLossDb: 0,
+    gOverTOverrideDbK: NaN,
     // Tsys is linear in Tsky: its slope and intercept, from the same function as the printout
     skyNoiseWeight: rx.kind === 'chain' ? systemNoiseTempK(1, 0, feedLossDb, 0, 0) : 0,
     fixedNoiseTempK: rx.kind === 'chain' ? systemNoiseTempK(0, antennaNoiseTempK, feedLossDb, feedPhysicalTempK, receiverNoiseTempK) : 0,
@@ -307,6 +309,7 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
     out.systemNoiseTempK = p.referenceSystemNoiseTempK + (a.skyNoiseTempK - p.referenceSkyNoiseTempK);
     out.gOverTDbK = gOverTAtSkyDbK(p.statedGOverTDbK, p.referenceSystemNoiseTempK, p.referenceSkyNoiseTempK, a.skyNoiseTempK);
   }
+  if (p.gOverTOverrideDbK === p.gOverTOverrideDbK) out.gOverTDbK = p.gOverTOverrideDbK; // given (not NaN)
   out.pointingLossDb = p.pointingLossDb;
   out.polarizationLossDb = p.polarizationLossDb;
 
@@ -322,6 +325,7 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
     out.esN0Db = ebN0Db + p.spectralEfficiencyDb;
     out.marginDb = ebN0Db - p.implementationLossDb - p.ebN0ThresholdDb - p.requiredMarginDb;
     out.modcodIndex = -1;
+    out.closureMarginDb = out.marginDb;
     rateBps = out.marginDb >= 0 ? p.informationRateBps : 0;
   } else {
     const esN0Db = cN0DbHz - p.symbolRateDbHz;
@@ -332,6 +336,8 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
     out.ebN0Db = esN0Db - (p.modcodEfficiencyDb[k] as number);
     out.marginDb = esN0Db - p.implementationLossDb - entry.esN0ThresholdDb - p.requiredMarginDb;
     out.modcodIndex = idx;
+    out.closureMarginDb =
+      esN0Db - p.implementationLossDb - p.modcodTable[p.lowestModcodIndex]!.esN0ThresholdDb - p.requiredMarginDb;
     rateBps = idx >= 0 ? entry.spectralEfficiencyBitsPerSymbol * p.symbolRateBaud : 0;
   }
   out.rateBps = look.elevationDeg >= p.minDataElevationDeg ? rateBps : 0;
@@ -389,7 +395,7 @@ export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
     'dBW',
     'EIRP - losses + G_rx (Friis)',
   );
-  add('G/T', s.gOverTDbK, 'dB/K', 'noise.ts');
+  add('G/T', s.gOverTDbK, 'dB/K', Number.isNaN(p.gOverTOverrideDbK) ? 'noise.ts' : 'given by the user (replaces the computed G/T)');
   add("Boltzmann's constant", BOLTZMANN_EXACT_DBW_PER_K_HZ, 'dBW/(K.Hz)', 'BIPM SI 9th ed. (2019), exact k');
   add('C/N0', s.cN0DbHz, 'dB-Hz', 'EIRP - losses + G/T - 10 log10 k');
   if (p.codingKind === 'fixed') {
@@ -399,16 +405,24 @@ export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
     add('Implementation loss', -p.implementationLossDb, 'dB', 'radio');
     add(`Required Eb/N0 (${p.codingName})`, -p.ebN0ThresholdDb, 'dB', 'coding');
   } else {
-    const k = s.modcodIndex >= 0 ? s.modcodIndex : p.lowestModcodIndex;
-    const e = p.modcodTable[k]!;
+    const robust = p.modcodTable[p.lowestModcodIndex]!;
     add('Symbol rate', p.symbolRateBaud, 'baud', 'radio');
     add('Es/N0', s.esN0Db, 'dB', 'C/N0 - 10 log10 Rs');
     add('Eb/N0', s.ebN0Db, 'dB', 'Es/N0 - 10 log10 eta');
     add('Implementation loss', -p.implementationLossDb, 'dB', 'radio');
-    add(`Required Es/N0 (${e.name}${s.modcodIndex < 0 ? ', none closes' : ''})`, -e.esN0ThresholdDb, 'dB', e.source);
+    add(`Required Es/N0 (${robust.name}, the most robust entry)`, -robust.esN0ThresholdDb, 'dB', robust.source);
   }
   add('Required margin', -p.requiredMarginDb, 'dB', 'radio');
-  add('Margin', s.marginDb, 'dB', 'sum of the above');
+  add('Margin', s.closureMarginDb, 'dB', p.codingKind === 'fixed' ? 'sum of the above' : 'sum of the above: closure margin (adaptive coding)');
+  if (p.codingKind === 'adaptive') {
+    if (s.modcodIndex >= 0) {
+      const e = p.modcodTable[s.modcodIndex]!;
+      add(`Entry in use: required Es/N0 (${e.name})`, -e.esN0ThresholdDb, 'dB', e.source);
+      add('Margin over the entry in use', s.marginDb, 'dB', 'Es/N0 - L_impl - threshold in use - required margin');
+    } else {
+      add('Entry in use: none closes', 0, 'dB', 'no entry of the table closes with the required margin');
+    }
+  }
   add('Data rate', s.rateBps, 'bit/s', look.elevationDeg >= p.minDataElevationDeg ? 'coding' : 'below minimum data elevation: 0');
   add('Shannon capacity of occupied band', s.shannonRateBps, 'bit/s', `B log2(1 + C/(N0 B)), B = ${p.occupiedBandwidthHz.toPrecision(4)} Hz`);
   add('Doppler shift', s.dopplerHz, 'Hz', '-f v_r / c');

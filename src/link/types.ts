@@ -60,6 +60,8 @@ export interface PreparedLink {
   readonly polarizationLossDb: number;
   /** Other losses given by the user (e.g. a handbook's receive feeder loss), dB; 0 by default. */
   readonly extraLossDb: number;
+  /** G/T given by the user (a handbook's figure), replacing the computed one, dB/K; NaN: computed. */
+  readonly gOverTOverrideDbK: number;
 
   // --- coding
   readonly codingKind: 'fixed' | 'adaptive';
@@ -118,7 +120,15 @@ export interface LinkSample {
   cN0DbHz: number;
   ebN0Db: number;
   esN0Db: number;
+  /** Margin over the entry in use (adaptive) or the fixed code, net of the required margin, dB. */
   marginDb: number;
+  /**
+   * Closure margin, dB: above the most robust entry's threshold plus the required margin
+   * (adaptive coding: how far the link is from not closing at all; fixed coding: marginDb).
+   * This is the margin reported everywhere except the trace, where marginDb (over the
+   * entry in use, about 0 by construction under adaptive coding) is also given.
+   */
+  closureMarginDb: number;
   /** Chosen MODCOD (adaptive), -1 when none closes or coding is fixed. */
   modcodIndex: number;
   rateBps: number;
@@ -178,6 +188,7 @@ export function newLinkSample(): LinkSample {
     ebN0Db: 0,
     esN0Db: 0,
     marginDb: 0,
+    closureMarginDb: 0,
     modcodIndex: -1,
     rateBps: 0,
     shannonRateBps: 0,

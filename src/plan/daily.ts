@@ -22,6 +22,7 @@ import { DateTime } from 'luxon';
 import { ModelRangeError } from '../errors.js';
 import type { Span } from '../scenario/types.js';
 import { VOLUME_BIN_MS, type Contact, type PlanResult } from './types.js';
+import { uniqueBitsIn, uniqueVolumeOf, uniqueVolumes } from './unique-volume.js';
 
 export type DayMode = { kind: 'utc' } | { kind: 'local' };
 
@@ -47,9 +48,30 @@ export interface DailyRow {
 export interface SpacecraftTotal {
   spacecraftId: string;
   contactCount: number;
-  /** Sum of contact durations over all stations (overlapping contacts at two stations both count). */
+  /** Length of the union of the spacecraft's windows (time in contact with any station), s. */
   contactTimeS: number;
+  /** Sum of contact durations over all stations (overlapping contacts at two stations both count), s. */
+  stationSumContactTimeS: number;
+  /** The radio's data counted once (unique-volume.ts: the best station at each instant). */
   volumeBits: number;
+  /** Plain sum of the contacts' volumes over all stations (simultaneous reception counted at each). */
+  stationSumVolumeBits: number;
+  /** With a recorder simulated: what actually left the recorder (volumeBits is then link capacity). */
+  deliveredBits?: number;
+  /** The spacecraft's other radios (not the data downlink), each its own volume counted once. */
+  otherRadios?: { radioId: string; volumeBits: number; stationSumVolumeBits: number }[];
+}
+
+/** One UTC day's total over all stations, the radio's data counted once. */
+export interface AllStationsDay {
+  day: string;
+  dayStartMs: number;
+  dayEndMs: number;
+  contactCount: number;
+  /** Unique volume of every spacecraft received that day (unique-volume.ts). */
+  volumeBits: number;
+  /** Sum of the stations' day volumes (simultaneous reception counted at each station). */
+  stationSumVolumeBits: number;
 }
 
 const HOUR_MS = 3_600_000;
@@ -158,16 +180,67 @@ export function dailyTotals(plan: PlanResult, mode: DayMode): DailyRow[] {
   return rows;
 }
 
-/** Totals per spacecraft over the whole span, in plan order. */
-export function spacecraftTotals(plan: PlanResult): SpacecraftTotal[] {
-  const totals = new Map<string, SpacecraftTotal>();
-  for (const sc of plan.spacecraft) totals.set(sc.id, { spacecraftId: sc.id, contactCount: 0, contactTimeS: 0, volumeBits: 0 });
-  for (const c of plan.contacts) {
-    const t = totals.get(c.spacecraftId);
-    if (!t) continue;
-    t.contactCount++;
-    t.contactTimeS += c.durationS;
-    t.volumeBits += c.link?.volumeBits ?? 0;
-  }
-  return [...totals.values()];
+/**
+ * Totals per spacecraft over the whole span, in plan order: volume and contact time
+ * counted once (unique-volume.ts), the station-sums beside them. With `delivered`
+ * (spacecraft id -> bits that left its recorder) deliveredBits is set.
+ */
+export function spacecraftTotals(plan: PlanResult, delivered?: ReadonlyMap<string, number>): SpacecraftTotal[] {
+  const unique = uniqueVolumes(
+    plan.spacecraft.map((s) => s.id),
+    plan.contacts,
+  );
+  return unique.map((u) => {
+    const t: SpacecraftTotal = {
+      spacecraftId: u.spacecraftId,
+      contactCount: plan.contacts.reduce((n, c) => n + (c.spacecraftId === u.spacecraftId ? 1 : 0), 0),
+      contactTimeS: u.contactTimeS,
+      stationSumContactTimeS: u.stationSumContactTimeS,
+      volumeBits: u.volumeBits,
+      stationSumVolumeBits: u.stationSumBits,
+    };
+    const d = delivered?.get(u.spacecraftId);
+    if (d !== undefined) t.deliveredBits = d;
+    const mine = plan.contacts.filter((c) => c.spacecraftId === u.spacecraftId && c.otherLinks);
+    const radioIds = [...new Set(mine.flatMap((c) => c.otherLinks!.map((l) => l.radioId)))];
+    if (radioIds.length > 0) {
+      t.otherRadios = radioIds.map((radioId) => {
+        const asData = mine.flatMap((c) => {
+          const l = c.otherLinks!.find((x) => x.radioId === radioId);
+          return l ? [{ ...c, link: l }] : [];
+        });
+        const v = uniqueVolumeOf(u.spacecraftId, asData);
+        return { radioId, volumeBits: v.volumeBits, stationSumVolumeBits: v.stationSumBits };
+      });
+    }
+    return t;
+  });
+}
+
+/**
+ * Per UTC day over all stations: the unique volume of every spacecraft (bins by their
+ * start, as the station rows), the station-sum beside it, and the contacts by AOS day.
+ */
+export function allStationsDaily(plan: PlanResult, rows: readonly DailyRow[]): AllStationsDay[] {
+  const unique = uniqueVolumes(
+    plan.spacecraft.map((s) => s.id),
+    plan.contacts,
+  );
+  return daysOfSpan(plan.span, 'UTC').map((d) => {
+    let count = 0;
+    let sum = 0;
+    for (const r of rows) {
+      if (r.timeZone !== 'UTC' || r.dayStartMs !== d.startMs) continue;
+      count += r.contactCount;
+      sum += r.volumeBits;
+    }
+    return {
+      day: d.day,
+      dayStartMs: d.startMs,
+      dayEndMs: d.endMs,
+      contactCount: count,
+      volumeBits: uniqueBitsIn(unique, d.startMs, d.endMs),
+      stationSumVolumeBits: sum,
+    };
+  });
 }

@@ -2,7 +2,10 @@
  * The link engine over the contacts: a budget at every time step inside every
  * contact, and the data volume each contact carries.
  *
- * Which radio: a spacecraft's first radio (radios[0]) is its data downlink.
+ * Which radio: a spacecraft's first radio (radios[0]) is its data downlink (the file's
+ * dataRadio is put first); every other radio gets its own volume too (Contact.otherLinks).
+ * Which feed: a radio links at a station through the station feed covering its frequency
+ * (scenario/feeds.ts); with none, the pair keeps its windows but has no link (one warning).
  * Sampling: per spacecraft, one common grid span.start + k * stepS; the target
  * is propagated once per grid time and that state serves every station in
  * contact then. Each contact is also evaluated at its own data start and end.
@@ -16,8 +19,9 @@
  * step or the minimum data elevation (and at 15-minute bin edges), and each
  * piece carries its rate: the step function is integrated exactly up to that
  * interpolation (integrateSegment). Time in each MODCOD comes from the same
- * pieces. The worst margin is the lowest over the samples of the whole contact
- * (AOS..LOS, both edges sampled).
+ * pieces. The worst margin is the lowest closure margin (above the most robust
+ * entry's threshold plus the required margin, LinkSample.closureMarginDb) over the
+ * samples of the whole contact (AOS..LOS, both edges sampled).
  */
 import { lookFrom, newLook } from '../geometry/topocentric.js';
 import { StateInterpolator } from '../geometry/interpolate.js';
@@ -31,7 +35,8 @@ import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types
 import { modcodStaircase, stepAt, type ModcodStaircase } from '../link/modcod/acm.js';
 import type { LinkSettings, Radio, Scenario, Station } from '../scenario/types.js';
 import type { Geometry } from './contacts.js';
-import { ModelRangeError, ScenarioError } from '../errors.js';
+import { ModelRangeError } from '../errors.js';
+import { feedFor, stationThroughFeed } from '../scenario/feeds.js';
 import { VOLUME_BIN_MS, type Contact, type ContactLink } from './types.js';
 
 /** Frequency above which a missing rain climate is worth a warning, Hz. */
@@ -46,6 +51,8 @@ export const DEFAULT_LINK_STEP_S = 30;
 export interface LinkSetup {
   /** PreparedLink by `${spacecraftId}|${stationId}` for the data radio. */
   links: Map<string, PreparedLink>;
+  /** The other radios' links: index r - 1 holds radios[r]'s, by `${spacecraftId}|${stationId}`. */
+  otherLinks?: Map<string, PreparedLink>[];
   warnings: string[];
 }
 
@@ -89,6 +96,16 @@ export function lowestMaskDeg(station: Station): number {
   return Math.max(0, lowest);
 }
 
+/** True when a feed of the station covers the radio's frequency (scenario/feeds.ts). */
+export function radioHeardAt(station: Station, radio: Radio): boolean {
+  return feedFor(station, radio.frequencyHz) !== undefined;
+}
+
+/** The one warning for a pair whose station has no feed for the radio's frequency. */
+export function noFeedWarning(station: Station, spacecraftId: string, radio: Radio): string {
+  return `${station.id}: no feed covers ${(radio.frequencyHz / 1e9).toPrecision(6)} GHz (radio ${radio.id} of ${spacecraftId}): its windows there carry no link`;
+}
+
 /** Builds the prepared budget of one radio at one station (atmosphere tables included). */
 export function prepareRadioAtStation(
   radio: Radio,
@@ -99,11 +116,14 @@ export function prepareRadioAtStation(
   tableCache?: Map<string, AtmosphereTable>,
 ): PreparedLink {
   try {
-    return prepareRadioAtStationUnnamed(radio, station, site, settings, minElevationDeg, tableCache);
+    // the receiver of the feed that hears the radio (callers check radioHeardAt first)
+    const heard = stationThroughFeed(station, radio.frequencyHz) ?? station;
+    return prepareRadioAtStationUnnamed(radio, heard, site, settings, minElevationDeg, tableCache);
   } catch (err) {
     // A model asked for outside its range (a frequency above P.618's 55 GHz, a pointing
-    // error wider than the beam) becomes one line naming the radio and the station.
-    if (err instanceof ModelRangeError) throw new ScenarioError([{ file: `radio ${radio.id} at station ${station.id}`, path: '', message: err.message }]);
+    // error wider than the beam) stays a ModelRangeError (sizing ends its scan on one),
+    // with the radio and the station as its context; the CLI prints it as one line.
+    if (err instanceof ModelRangeError) throw err.withContext(`radio ${radio.id} at station ${station.id}`);
     throw err;
   }
 }
@@ -140,6 +160,7 @@ export function prepareRadioAtStationUnnamed(
 
 export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup {
   const links = new Map<string, PreparedLink>();
+  const otherLinks: Map<string, PreparedLink>[] = [];
   const warnings: string[] = [];
   const warnedRain = new Set<string>();
   // The atmosphere depends on the station, frequency, polarisation and availability only:
@@ -148,17 +169,26 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup 
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
     for (const sc of scenario.spacecraft) {
-      const radio = sc.radios[0];
-      if (!radio) continue;
-      const input = atmosphereInputFor(station, radio, scenario.link);
-      if (!rainModelled(input) && radio.frequencyHz > RAIN_WARNING_ABOVE_HZ && !warnedRain.has(station.id)) {
-        warnedRain.add(station.id);
-        warnings.push(`${station.id}: no rain climate (rainRate001MmH, rainHeightKm); the rain term is not modelled above ${RAIN_WARNING_ABOVE_HZ / 1e9} GHz`);
-      }
-      links.set(linkKey(sc.id, station.id), prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station), tables));
+      sc.radios.forEach((radio, r) => {
+        if (!radioHeardAt(station, radio)) {
+          warnings.push(noFeedWarning(station, sc.id, radio));
+          return;
+        }
+        const input = atmosphereInputFor(station, radio, scenario.link);
+        if (!rainModelled(input) && radio.frequencyHz > RAIN_WARNING_ABOVE_HZ && !warnedRain.has(station.id)) {
+          warnedRain.add(station.id);
+          warnings.push(`${station.id}: no rain climate (rainRate001MmH, rainHeightKm); the rain term is not modelled above ${RAIN_WARNING_ABOVE_HZ / 1e9} GHz`);
+        }
+        const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station), tables);
+        if (r === 0) links.set(linkKey(sc.id, station.id), link);
+        else {
+          while (otherLinks.length < r) otherLinks.push(new Map());
+          otherLinks[r - 1]!.set(linkKey(sc.id, station.id), link);
+        }
+      });
     }
   });
-  return { links, warnings };
+  return { links, ...(otherLinks.length > 0 ? { otherLinks } : {}), warnings };
 }
 
 /**
@@ -225,6 +255,12 @@ interface Accumulator {
   binStartMs: number;
   /** Volume per 15-min bin (fractional while integrating). */
   bins: number[];
+  /**
+   * The rate step function as [startMs, endMs, rateBps] triplets (rate > 0 only, adjacent
+   * pieces of one rate merged), kept only for contacts that overlap another contact of
+   * the same spacecraft: the unique-volume rule (unique-volume.ts) needs it there.
+   */
+  pieces: number[] | undefined;
 }
 
 function modcodNameAt(link: PreparedLink, index: number): string {
@@ -292,14 +328,22 @@ function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number,
     acc.closedS += dtS;
     acc.modcodTimeS[acc.modcodBase + (m.stairs.index[step] as number)]! += dtS;
     if (rate > acc.peakRateBps) acc.peakRateBps = rate;
+    const pc = acc.pieces;
+    if (pc !== undefined && rate > 0) {
+      const a = t0 + fa * span;
+      const b = t0 + fb * span;
+      const n = pc.length;
+      if (n >= 3 && pc[n - 1] === rate && pc[n - 2] === a) pc[n - 2] = b;
+      else pc.push(a, b, rate);
+    }
   }
 }
 
 /** Adds the sample at tMs: worst margin over the whole contact, volume over the data span. */
 function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): void {
   acc.samples++;
-  if (s.marginDb < acc.worstMarginDb) {
-    acc.worstMarginDb = s.marginDb;
+  if (s.closureMarginDb < acc.worstMarginDb) {
+    acc.worstMarginDb = s.closureMarginDb;
     acc.worstAtMs = tMs;
     acc.worstElevationDeg = look.elevationDeg;
   }
@@ -328,6 +372,8 @@ export function integrateContacts(
   setup: LinkSetup,
   settings: LinkSettings,
   stepS: number = DEFAULT_LINK_STEP_S,
+  /** All contacts of the run when `contacts` is a part of them (which ones overlap is decided over these). */
+  overlapContext?: readonly Contact[],
 ): LinkRunStats {
   const stepMs = stepS * 1000;
   const siteIndex = new Map(geometry.sites.map((s, i) => [s.stationId, i]));
@@ -342,6 +388,8 @@ export function integrateContacts(
   let modcodStride = 1;
   for (const l of setup.links.values()) modcodStride = Math.max(modcodStride, l.modcodTable.length);
   const modcodBuffer = new Float64Array(contacts.length * modcodStride);
+  const context = overlapContext ?? contacts;
+  const overlapping = new Set([...contactsOverlappingOwnSpacecraft(context)].map((i) => context[i]!));
   for (let ci = 0; ci < contacts.length; ci++) {
     const c = contacts[ci]!;
     const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
@@ -375,6 +423,7 @@ export function integrateContacts(
       samples: 0,
       binStartMs: Math.floor(c.aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS,
       bins: [],
+      pieces: overlapping.has(c) ? [] : undefined,
     };
     const list = bySpacecraft.get(c.spacecraftId) ?? [];
     list.push(acc);
@@ -444,6 +493,73 @@ export function integrateContacts(
   return stats;
 }
 
+/**
+ * Indices of the contacts in a cluster of overlapping windows of one spacecraft (a chain
+ * of windows each starting before the ones before it have all ended), size 2 or more.
+ */
+export function contactsOverlappingOwnSpacecraft(contacts: readonly Contact[]): Set<number> {
+  const out = new Set<number>();
+  const bySc = new Map<string, number[]>();
+  contacts.forEach((c, i) => {
+    const l = bySc.get(c.spacecraftId);
+    if (l) l.push(i);
+    else bySc.set(c.spacecraftId, [i]);
+  });
+  for (const idx of bySc.values()) {
+    idx.sort((a, b) => contacts[a]!.aosMs - contacts[b]!.aosMs);
+    let reachMs = -Infinity;
+    let cluster: number[] = [];
+    const close = () => {
+      if (cluster.length > 1) for (const j of cluster) out.add(j);
+    };
+    for (const i of idx) {
+      const c = contacts[i]!;
+      if (!(c.aosMs < reachMs)) {
+        close();
+        cluster = [];
+      }
+      cluster.push(i);
+      if (c.losMs > reachMs) reachMs = c.losMs;
+    }
+    close();
+  }
+  return out;
+}
+
+/**
+ * Fills `contact.otherLinks` for the spacecraft's other radios (setup.otherLinks): each
+ * radio's volume over the same windows, by the same engine (one run per radio index).
+ */
+export function integrateOtherRadios(
+  contacts: Contact[],
+  geometry: Geometry,
+  setup: LinkSetup,
+  settings: LinkSettings,
+  stepS: number = DEFAULT_LINK_STEP_S,
+): LinkRunStats {
+  const stats: LinkRunStats = { linkSamples: 0, propagations: 0 };
+  for (const links of setup.otherLinks ?? []) {
+    const pairs: { original: Contact; copy: Contact }[] = [];
+    for (const c of contacts) {
+      if (!links.has(linkKey(c.spacecraftId, c.stationId))) continue;
+      const { link: _l, otherLinks: _o, ...bare } = c;
+      pairs.push({ original: c, copy: bare as Contact });
+    }
+    if (pairs.length === 0) continue;
+    const s = integrateContacts(
+      pairs.map((p) => p.copy),
+      geometry,
+      { links, warnings: [] },
+      settings,
+      stepS,
+    );
+    stats.linkSamples += s.linkSamples;
+    stats.propagations += s.propagations;
+    for (const p of pairs) if (p.copy.link) (p.original.otherLinks ??= []).push(p.copy.link);
+  }
+  return stats;
+}
+
 /** Whole bits per bin by rounding the running sum, so the bins add up exactly to the total. */
 export function wholeBitBins(bins: readonly number[]): { bins: number[]; totalBits: number } {
   const out: number[] = [];
@@ -485,5 +601,6 @@ function finish(acc: Accumulator): void {
     binStartMs: acc.binStartMs,
     volumeBinsBits: whole.bins,
   };
+  if (acc.pieces !== undefined) link.ratePieces = acc.pieces;
   acc.contact.link = link;
 }

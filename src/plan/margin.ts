@@ -25,9 +25,10 @@
  *   for a LEO at 5 deg. Valid for r >= R.
  * - The budget there: prepareRadioAtStation (atmosphere at the scenario's availability,
  *   table from 0 deg) + evaluateLink at (elevation, worst range, range rate 0). Its
- *   marginDb is already net of the radio's required margin (src/link/budget.ts): the row
- *   PASSES when that margin >= 0. For adaptive coding it is the margin above the MODCOD
- *   chosen there; it is >= 0 exactly when some MODCOD closes with the required margin.
+ *   closure margin is net of the radio's required margin (src/link/budget.ts): the row
+ *   PASSES when it is >= 0. For adaptive coding it is the margin above the most robust
+ *   entry's threshold (not above the entry in use, which is about 0 by construction);
+ *   it is >= 0 exactly when some MODCOD closes with the required margin.
  * - Usable data mask: the lowest elevation e* such that the margin is >= 0 at every
  *   elevation from e* to 90 deg at the same worst-case range model rho(e; r_max): a
  *   downward scan every USABLE_SCAN_STEP_DEG, then bisection to USABLE_TOLERANCE_DEG.
@@ -35,6 +36,11 @@
  *   down to the horizon.
  * - Worst margin seen: the lowest ContactLink.worstMarginDb of the pair's contacts in the
  *   plan (null when the pair had no contact with a link in the span).
+ * - Result: 'pass' / 'fail' by the margin at the check elevation; a pair with no contact
+ *   in the span (the spacecraft never rises over that station's mask) is 'not visible':
+ *   neither pass nor fail, and it does not set the exit code. A spacecraft with no orbit
+ *   state in the span fails (a gate must not pass silently). A pair whose station has no
+ *   feed covering the radio's frequency has no link to check: 'no feed', neither pass nor fail.
  * Pure: no I/O.
  */
 import { ModelRangeError } from '../errors.js';
@@ -45,7 +51,7 @@ import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { LinkSettings, Scenario, Span, Station } from '../scenario/types.js';
 import { prepareGeometry } from './contacts.js';
-import { lowestMaskDeg, prepareRadioAtStation } from './link.js';
+import { lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
 import type { PlanResult } from './types.js';
 
 /** Sampling step of the largest-distance search, s (a LEO period is ~5,700 s). */
@@ -82,7 +88,16 @@ export interface MarginRow {
   /** Lowest margin of the pair's contacts in the plan, dB; null: no contact. */
   worstSeenMarginDb: number | null;
   contacts: number;
+  /** True only when result is 'pass'. */
   pass: boolean;
+  result: MarginResult;
+}
+
+export type MarginResult = 'pass' | 'fail' | 'not visible' | 'no feed';
+
+/** True when no row fails ('not visible' rows neither pass nor fail). */
+export function marginGatePasses(rows: readonly MarginRow[]): boolean {
+  return rows.every((r) => r.result !== 'fail');
 }
 
 export interface MarginOptions {
@@ -167,7 +182,7 @@ export function marginAtElevation(
   look.rangeKm = slantRangeAtElevationKm(stationRadiusKm, targetRadiusKm, elevationDeg);
   look.rangeRateKmS = 0;
   evaluateLink(link, look, out);
-  return out.marginDb;
+  return out.closureMarginDb;
 }
 
 /** Usable data mask (see the head comment): deg, or null when the link never closes. */
@@ -194,7 +209,7 @@ export function usableMaskDeg(link: PreparedLink, stationRadiusKm: number, targe
 }
 
 function modcodName(link: PreparedLink, s: LinkSample): string {
-  if (s.marginDb < 0) return '';
+  if (s.closureMarginDb < 0) return '';
   if (link.codingKind === 'fixed') return link.codingName;
   return link.modcodTable[s.modcodIndex]?.name ?? '';
 }
@@ -251,10 +266,31 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
           worstSeenMarginDb: null,
           contacts: 0,
           pass: false,
+          result: 'fail',
         });
         continue;
       }
       const contacts = plan.contacts.filter((c) => c.stationId === station.id && c.spacecraftId === sc.id);
+      if (!radioHeardAt(station, radio)) {
+        rows.push({
+          station: station.id,
+          spacecraft: sc.id,
+          radioId: radio.id,
+          maskElevationDeg: maskCheckDeg,
+          maxRadiusKm: far.radiusKm,
+          maxRadiusAtMs: far.atMs,
+          worstRangeKm: Number.NaN,
+          maskMarginDb: Number.NaN,
+          maskModcod: 'no feed covers the radio',
+          maskRateBps: 0,
+          usableMaskDeg: null,
+          worstSeenMarginDb: null,
+          contacts: contacts.length,
+          pass: false,
+          result: 'no feed',
+        });
+        continue;
+      }
       let elevationDeg = maskCheckDeg;
       const target = geometry.targets.get(sc.id);
       if (target && contacts.length > 0 && contacts.every((c) => c.aosClipped && c.losClipped)) {
@@ -280,7 +316,8 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
         usableMaskDeg: usableMaskDeg(link, stationRadiusKm, far.radiusKm, opts.toleranceDeg),
         worstSeenMarginDb: worstSeen,
         contacts: contacts.length,
-        pass: maskMarginDb >= 0,
+        pass: contacts.length > 0 && maskMarginDb >= 0,
+        result: contacts.length === 0 ? 'not visible' : maskMarginDb >= 0 ? 'pass' : 'fail',
       });
     }
   });

@@ -5,7 +5,7 @@
 import { DEFAULT_SEARCH, type SearchOptions } from '../geometry/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import { prepareGeometry, findContacts } from './contacts.js';
-import { prepareLinks, integrateContacts, DEFAULT_LINK_STEP_S } from './link.js';
+import { prepareLinks, integrateContacts, integrateOtherRadios, DEFAULT_LINK_STEP_S } from './link.js';
 import type { PlanResult } from './types.js';
 
 export interface PlanOptions {
@@ -31,8 +31,9 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}):
     const setup = prepareLinks(scenario, geometry);
     warnings.push(...setup.warnings);
     const stats = integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);
-    linkSamples = stats.linkSamples;
-    propagations += stats.propagations;
+    const other = integrateOtherRadios(found.contacts, geometry, setup, scenario.link, linkStepS);
+    linkSamples = stats.linkSamples + other.linkSamples;
+    propagations += stats.propagations + other.propagations;
     opts.onProgress?.(2, total, 'done');
   }
   return planResult(scenario, span, linkStepS, found.contacts, warnings, { propagations, linkSamples });

@@ -15,7 +15,7 @@ import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type PreparedLink } from '../link/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import { makeTarget } from './contacts.js';
-import { lowestMaskDeg, prepareRadioAtStation } from './link.js';
+import { lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
 import type { Contact, PlanResult } from './types.js';
 
 export interface ContactSeries {
@@ -72,7 +72,7 @@ export function sampleContact(
     tMs[m] = t;
     elevationDeg[m] = look.elevationDeg;
     rateBps[m] = t >= dataStartMs ? sample.rateBps : 0;
-    marginDb[m] = sample.marginDb;
+    marginDb[m] = sample.closureMarginDb;
     m++;
   }
   return {
@@ -123,7 +123,7 @@ export function seriesForContacts(
     const sc = scenario.spacecraft.find((s) => s.id === c.spacecraftId);
     const station = scenario.stations.find((s) => s.id === c.stationId);
     const radio = sc?.radios[0];
-    if (!sc || !station || !radio) continue;
+    if (!sc || !station || !radio || !radioHeardAt(station, radio)) continue;
     let target = targets.get(sc.id);
     if (!target) {
       target = makeTarget(sc, span);

@@ -15,21 +15,18 @@ import type { Look } from '../geometry/types.js';
 import { budgetTerms } from '../link/budget.js';
 import type { AtmosphereResult, AtmosphereTable } from '../link/atmosphere/types.js';
 import type { BudgetTerm, PreparedLink } from '../link/types.js';
+import { skyNoiseTemperatureK } from '../link/atmosphere/sky-noise.js';
 import type { Radio, Scenario, Spacecraft } from '../scenario/types.js';
-import { lowestMaskDeg, prepareRadioAtStation } from './link.js';
+import { lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
 
 export const MOON_MEAN_DISTANCE_KM = 384_400;
 
-export interface SingleBudgetRequest {
+export interface SingleBudgetRequest extends LinkOverrides {
   spacecraftId: string;
   stationId: string;
   radioId?: string;
   elevationDeg?: number;
   rangeKm?: number;
-  /** Handbook overrides, dB (replace the modelled term). */
-  atmosphereDb?: number;
-  pointingLossDb?: number;
-  extraLossDb?: number;
 }
 
 export interface SingleBudget {
@@ -51,19 +48,58 @@ export function typicalRadiusKm(sc: Spacecraft): number {
   return semiMajorAxisKm(n);
 }
 
-/** An atmosphere of a fixed total (handbook value): no rain split, sky noise unchanged. */
-function fixedAtmosphere(totalDb: number, base: AtmosphereTable): AtmosphereTable {
+/**
+ * An atmosphere of a fixed total (handbook value): no split into terms, and the sky
+ * noise that attenuation implies by ITU-R P.618-14 §3 (src/link/atmosphere/sky-noise.ts:
+ * Tsky = Tmr (1 - 10^(-A/10)) + 2.7 K 10^(-A/10), Tmr = 275 K), the whole given total
+ * taken as absorption (a handbook total does not say how much is scintillation).
+ */
+export function fixedAtmosphere(totalDb: number, base: AtmosphereTable): AtmosphereTable {
+  const skyNoiseTempK = skyNoiseTemperatureK(totalDb);
   return {
     minElevationDeg: base.minElevationDeg,
-    at(elevationDeg: number, out: AtmosphereResult) {
-      base.at(elevationDeg, out);
+    at(_elevationDeg: number, out: AtmosphereResult) {
       out.gasDb = totalDb;
       out.rainDb = 0;
       out.cloudDb = 0;
       out.scintillationDb = 0;
       out.totalDb = totalDb;
+      out.skyNoiseTempK = skyNoiseTempK;
     },
   };
+}
+
+/** Handbook overrides of a prepared budget (budget and size's one-geometry mode). */
+export interface LinkOverrides {
+  /** Replaces the modelled atmosphere (and its sky noise, from this attenuation), dB. */
+  atmosphereDb?: number;
+  pointingLossDb?: number;
+  extraLossDb?: number;
+  /** Replaces the computed G/T (a handbook's stated figure for the budget's conditions), dB/K. */
+  gOverTDbK?: number;
+}
+
+/** The prepared link with the given overrides applied. */
+export function withOverrides(link: PreparedLink, o: LinkOverrides): PreparedLink {
+  let out = link;
+  if (o.atmosphereDb !== undefined) out = { ...out, atmosphere: fixedAtmosphere(o.atmosphereDb, out.atmosphere) };
+  if (o.pointingLossDb !== undefined) out = { ...out, pointingLossDb: o.pointingLossDb };
+  if (o.extraLossDb !== undefined) out = { ...out, extraLossDb: o.extraLossDb };
+  if (o.gOverTDbK !== undefined) out = { ...out, gOverTOverrideDbK: o.gOverTDbK };
+  return out;
+}
+
+/** The budget's terms with the sources of overridden terms restated. */
+export function overriddenTerms(terms: BudgetTerm[], o: LinkOverrides): BudgetTerm[] {
+  return terms.map((t) => {
+    if (o.atmosphereDb !== undefined && /^(Gaseous|Rain|Cloud|Scintillation)/.test(t.name)) return { ...t, source: 'replaced by --atmosphere-db' };
+    if (o.atmosphereDb !== undefined && t.name === 'Atmosphere total') return { ...t, source: 'given (--atmosphere-db)' };
+    if (o.atmosphereDb !== undefined && t.name === 'Sky noise temperature') {
+      return { ...t, source: 'ITU-R P.618-14 sec. 3 from the given attenuation (all of it taken as absorption, Tmr 275 K)' };
+    }
+    if (o.pointingLossDb !== undefined && t.name === 'Pointing loss') return { ...t, source: 'given (--pointing-loss-db)' };
+    return t;
+  });
 }
 
 export interface PointRequest {
@@ -90,12 +126,22 @@ export function preparePoint(scenario: Scenario, req: PointRequest, command: str
     throw new ScenarioError([{ file: scenario.sources.spacecraftFile, path: `spacecraft ${sc.id}.radios`, message: `has no radio; ${command} needs one` }]);
   }
   if (req.elevationDeg === undefined && req.rangeKm === undefined) throw new UsageError(`${command}: give --elevation DEG or --range-km KM (or both)`);
+  if (req.elevationDeg === undefined && sc.orbit.kind !== 'elements') {
+    // The Moon's or a fixed sky direction's elevation does not follow from a range: a
+    // made-up triangle would give an elevation (3 deg for the Moon) nobody asked for.
+    throw new UsageError(
+      `${command}: ${sc.id} is ${sc.orbit.kind === 'moon' ? 'at the Moon' : 'at a fixed sky direction'}; its elevation does not follow from --range-km: give --elevation DEG too`,
+    );
+  }
   const site = makeSite(station.id, station.latitudeDeg, station.longitudeDeg, station.heightKm);
   const stationRadiusKm = Math.hypot(...site.ecefKm);
   const orbitRadiusKm = typicalRadiusKm(sc);
   const elevationDeg = req.elevationDeg ?? elevationForRangeDeg(stationRadiusKm, orbitRadiusKm, req.rangeKm!);
   const rangeKm = req.rangeKm ?? slantRangeKm(stationRadiusKm, orbitRadiusKm, elevationDeg);
   const minEl = Math.min(lowestMaskDeg(station), Math.max(0, elevationDeg));
+  if (!radioHeardAt(station, radio)) {
+    throw new UsageError(`${command}: no feed of station ${station.id} covers ${(radio.frequencyHz / 1e6).toFixed(3)} MHz (radio ${radio.id} of ${sc.id}); there is no link to budget`);
+  }
   const link = prepareRadioAtStation(radio, station, site, scenario.link, minEl);
   return { sc, radio, link, look: { azimuthDeg: 0, elevationDeg, rangeKm, rangeRateKmS: 0 }, orbitRadiusKm };
 }
@@ -103,15 +149,7 @@ export function preparePoint(scenario: Scenario, req: PointRequest, command: str
 export function singleBudget(scenario: Scenario, req: SingleBudgetRequest): SingleBudget {
   const point = preparePoint(scenario, req, 'budget');
   const { sc, radio, look, orbitRadiusKm } = point;
-  let link = point.link;
-  if (req.atmosphereDb !== undefined) link = { ...link, atmosphere: fixedAtmosphere(req.atmosphereDb, link.atmosphere) };
-  if (req.pointingLossDb !== undefined) link = { ...link, pointingLossDb: req.pointingLossDb };
-  if (req.extraLossDb !== undefined) link = { ...link, extraLossDb: req.extraLossDb };
-  const terms = budgetTerms(link, look).map((t) => {
-    if (req.atmosphereDb !== undefined && /^(Gaseous|Rain|Cloud|Scintillation)/.test(t.name)) return { ...t, source: 'replaced by --atmosphere-db' };
-    if (req.atmosphereDb !== undefined && t.name === 'Atmosphere total') return { ...t, source: 'given (--atmosphere-db)' };
-    if (req.pointingLossDb !== undefined && t.name === 'Pointing loss') return { ...t, source: 'given (--pointing-loss-db)' };
-    return t;
-  });
+  const link = withOverrides(point.link, req);
+  const terms = overriddenTerms(budgetTerms(link, look), req);
   return { spacecraftId: sc.id, stationId: req.stationId, radioId: radio.id, look, orbitRadiusKm, terms };
 }

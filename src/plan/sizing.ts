@@ -3,7 +3,7 @@
  * symbol rate) makes the link reach a target?
  *
  * Week mode (`sizeForWeek`): the smallest value at which one spacecraft's
- * delivered volume over the span, divided by the span's days, reaches a target
+ * delivered volume over the span (its radio's data counted once: unique-volume.ts), divided by the span's days, reaches a target
  * daily volume at the scenario's availability. Geometry (targets, sites,
  * contact windows) and a baseline link run are computed once; each candidate
  * re-runs the link engine (prepareRadioAtStation + integrateContacts) only over
@@ -48,10 +48,11 @@ import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type PreparedLink } from '../link/types.js';
 import type { Radio, Scenario, Span, Station } from '../scenario/types.js';
 import { findContacts, prepareGeometry, type Geometry } from './contacts.js';
-import { integrateContacts, linkKey, lowestMaskDeg, prepareLinks, prepareRadioAtStation, type LinkSetup } from './link.js';
+import { integrateContacts, linkKey, lowestMaskDeg, prepareLinks, prepareRadioAtStation, radioHeardAt, type LinkSetup } from './link.js';
 import { maxDepth, scheduleContacts } from './schedule.js';
-import { preparePoint } from './single.js';
+import { preparePoint, withOverrides, type LinkOverrides } from './single.js';
 import { SolverLimitError } from '../geometry/roots.js';
+import { uniqueVolumeOf } from './unique-volume.js';
 
 /** Bisection steps any sizing search may take (a 120 dB or 1e6:1 bracket needs under 40): past it, a bug. */
 const MAX_BISECTIONS = 200;
@@ -158,7 +159,7 @@ function deliveredBits(ctx: SizingContext, spacecraftId: string, cand: Candidate
     for (const sc of scenario.spacecraft) {
       const isTarget = sc.id === spacecraftId;
       const radio = isTarget && cand.radio ? cand.radio : sc.radios[0];
-      if (!radio) continue;
+      if (!radio || !radioHeardAt(st, radio)) continue;
       const changed = (isTarget && cand.radio !== undefined) || stationChanged;
       if (!changed) continue;
       if (!isTarget && basis === 'unscheduled') continue; // other spacecraft do not count then
@@ -177,13 +178,16 @@ function deliveredBits(ctx: SizingContext, spacecraftId: string, cand: Candidate
     setup,
     scenario.link,
     ctx.linkStepS,
+    contacts,
   );
-  if (basis === 'unscheduled') {
-    return contacts.reduce((s, c) => s + (c.spacecraftId === spacecraftId ? (c.link?.volumeBits ?? 0) : 0), 0);
-  }
+  // the spacecraft's volume counts its radio's data once (unique-volume.ts)
+  if (basis === 'unscheduled') return uniqueVolumeOf(spacecraftId, contacts).volumeBits;
   const plan: PlanResult = { ...ctx.basePlan, contacts };
   const sched = scheduleContacts(plan, stations, scenario.spacecraft, { oneStationAtATime: oneStation });
-  return sched.taken.reduce((s, t) => s + (contacts[t.contactIndex]!.spacecraftId === spacecraftId ? t.volumeBits : 0), 0);
+  return uniqueVolumeOf(
+    spacecraftId,
+    sched.taken.map((t) => contacts[t.contactIndex]!),
+  ).volumeBits;
 }
 
 function findSpacecraft(scenario: Scenario, id: string) {
@@ -210,7 +214,16 @@ function withDish(st: Station, diameterM: number): Station {
   const rx = st.receiver;
   if (rx.kind !== 'chain') throw new UsageError(`--solve dish: station ${st.id} states a G/T; sizing its dish needs a receive chain (noise temperature or figure)`);
   const { gainDbi: _g, ...rest } = rx;
-  return { ...st, receiver: { ...rest, dishDiameterM: diameterM } };
+  const dish = (r: Station['receiver']): Station['receiver'] => {
+    if (r.kind !== 'chain') return r;
+    const { gainDbi: _h, ...other } = r;
+    return { ...other, dishDiameterM: diameterM };
+  };
+  return {
+    ...st,
+    receiver: { ...rest, dishDiameterM: diameterM },
+    ...(st.feeds ? { feeds: st.feeds.map((f) => ({ ...f, receiver: dish(f.receiver) })) } : {}),
+  };
 }
 
 /** Week mode (see the head comment). */
@@ -401,7 +414,7 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
 
 // ---------------------------------------------------------------- one geometry
 
-export interface PointSizingRequest {
+export interface PointSizingRequest extends LinkOverrides {
   spacecraftId: string;
   stationId: string;
   elevationDeg?: number;
@@ -433,7 +446,7 @@ export interface PointSizingResult {
 /** The prepared budget and look of a one-geometry request (shared with the tests). */
 export function pointLink(scenario: Scenario, req: Omit<PointSizingRequest, 'targetRateBps'>): { link: PreparedLink; look: Look; radio: Radio } {
   const { link, look, radio } = preparePoint(scenario, req, 'size');
-  return { link, radio, look };
+  return { link: withOverrides(link, req), radio, look };
 }
 
 /** One-geometry mode (see the head comment). */

@@ -30,7 +30,7 @@ import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import { findContacts, prepareGeometry, type Geometry } from './contacts.js';
-import { prepareRadioAtStation } from './link.js';
+import { prepareRadioAtStation, radioHeardAt } from './link.js';
 import type { Contact } from './types.js';
 
 export const DEFAULT_TRACE_STEP_S = 10;
@@ -149,7 +149,8 @@ export function prepareTrace(scenario: Scenario, span: Span, opts: TraceOptions 
       return {
         stationId: st.id,
         site,
-        link: radio ? prepareRadioAtStation(radio, st, site, selected.link, TRACE_LINK_MIN_ELEVATION_DEG) : undefined,
+        // no link where no feed of the station covers the radio's frequency
+        link: radio && radioHeardAt(st, radio) ? prepareRadioAtStation(radio, st, site, selected.link, TRACE_LINK_MIN_ELEVATION_DEG) : undefined,
         contacts: found.contacts
           .filter((c) => c.spacecraftId === sc.id && c.stationId === st.id)
           .sort((a, b) => a.aosMs - b.aosMs),

@@ -12,6 +12,7 @@ export interface ContactLink {
   dataEndMs: number;
   /** Seconds during which the link closed (rate > 0). */
   closedS: number;
+  /** Lowest closure margin over the contact's samples, dB (LinkSample.closureMarginDb). */
   worstMarginDb: number;
   worstMarginAtMs: number;
   worstMarginElevationDeg: number;
@@ -27,13 +28,22 @@ export interface ContactLink {
    */
   binStartMs: number;
   volumeBinsBits: number[];
+  /**
+   * The rate as a step function, [startMs, endMs, rateBps] triplets (rate > 0 only), for a
+   * contact that overlaps another contact of the same spacecraft (plan/unique-volume.ts
+   * counts the radio's data once there); absent otherwise.
+   */
+  ratePieces?: number[];
 }
 
 export const VOLUME_BIN_MS = 15 * 60 * 1000;
 
 export interface Contact extends Pass {
   durationS: number;
+  /** The data downlink's link (radios[0]); absent without a radio or a feed for it. */
   link?: ContactLink;
+  /** The spacecraft's other radios, each with its own volume (radios[1..] heard by a feed). */
+  otherLinks?: ContactLink[];
 }
 
 export interface PlanResult {

@@ -17,6 +17,11 @@ export interface MarginReport {
 
 const round = (v: number | null, d: number): number | null => (v !== null && Number.isFinite(v) ? Number(v.toFixed(d)) : null);
 
+/** PASS, FAIL or "not visible" (a pair with no contact in the span). */
+export function resultText(r: MarginRow): string {
+  return r.result === 'pass' ? 'PASS' : r.result === 'fail' ? 'FAIL' : r.result;
+}
+
 function usableText(r: MarginRow): string {
   if (r.usableMaskDeg === null) return 'never';
   return fixed(r.usableMaskDeg, 2);
@@ -47,15 +52,19 @@ export function renderMarginTable(report: MarginReport): string {
     usableText(r),
     r.worstSeenMarginDb === null ? '-' : fixed(r.worstSeenMarginDb, 2),
     String(r.contacts),
-    r.pass ? 'PASS' : 'FAIL',
+    resultText(r),
   ]);
-  const failed = report.rows.filter((r) => !r.pass).length;
+  const failed = report.rows.filter((r) => r.result === 'fail').length;
+  const passed = report.rows.filter((r) => r.result === 'pass').length;
+  const hidden = report.rows.length - failed - passed;
   return (
     `Worst-case elevation margin, ${isoUtc(report.span.startMs, 0)} .. ${isoUtc(report.span.endMs, 0)}, ` +
     `atmosphere at ${report.availabilityPercent} % availability\n` +
     `(margin net of each radio's required margin, at the lowest mask elevation and the longest slant range the orbit reaches there)\n\n` +
     renderTable(cols, body) +
-    `\n\n${report.rows.length - failed} pass, ${failed} fail\n`
+    `\n\n${passed} pass, ${failed} fail` +
+    (hidden > 0 ? `, ${hidden} not graded (not visible: no contact in the span; no feed: the station cannot hear the radio)` : '') +
+    '\n'
   );
 }
 
@@ -66,7 +75,7 @@ function jsonRow(r: MarginRow) {
     radio: r.radioId,
     maskElevationDeg: round(r.maskElevationDeg, 2),
     maxGeocentricRadiusKm: round(r.maxRadiusKm, 1),
-    maxGeocentricRadiusUtc: (Number.isFinite(r.maxRadiusAtMs) ? isoUtc(r.maxRadiusAtMs, 0) : null),
+    maxGeocentricRadiusUtc: (Number.isFinite(r.maxRadiusAtMs) ? isoUtc(r.maxRadiusAtMs, 3) : null),
     worstRangeKm: round(r.worstRangeKm, 1),
     maskMarginDb: round(r.maskMarginDb, 2),
     maskModcod: r.maskModcod,
@@ -75,6 +84,7 @@ function jsonRow(r: MarginRow) {
     worstSeenMarginDb: round(r.worstSeenMarginDb, 2),
     contacts: r.contacts,
     pass: r.pass,
+    result: r.result,
   };
 }
 
@@ -82,10 +92,10 @@ export function renderMarginJson(report: MarginReport): string {
   return (
     JSON.stringify(
       {
-        from: isoUtc(report.span.startMs, 0),
-        to: isoUtc(report.span.endMs, 0),
+        from: isoUtc(report.span.startMs, 3),
+        to: isoUtc(report.span.endMs, 3),
         availabilityPercent: report.availabilityPercent,
-        pass: report.rows.every((r) => r.pass),
+        pass: report.rows.every((r) => r.result !== 'fail'),
         rows: report.rows.map(jsonRow),
       },
       null,
@@ -125,7 +135,7 @@ export function renderMarginCsv(report: MarginReport): string {
     cell(r.usableMaskDeg, 2),
     cell(r.worstSeenMarginDb, 2),
     String(r.contacts),
-    r.pass ? 'PASS' : 'FAIL',
+    resultText(r),
   ]);
   return stringify([[...MARGIN_CSV_COLUMNS], ...rows]);
 }

@@ -8,6 +8,7 @@ import { stringify } from 'csv-stringify/sync';
 import type { PlanResult, Contact } from '../plan/types.js';
 import { isoUtc, isoInZone, formatDuration } from '../time/format.js';
 import { renderTable, fixed, formatBits, type Column } from './table.js';
+import { uniqueVolumes } from '../plan/unique-volume.js';
 
 const round = (v: number, d: number) => (Number.isFinite(v) ? Number(v.toFixed(d)) : null);
 
@@ -60,7 +61,15 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
   }
   const clipped = plan.contacts.some((c) => c.aosClipped || c.losClipped);
   parts.push('');
-  parts.push(`All stations: ${summaryLine(plan.contacts, hasLink)}`);
+  parts.push(`All stations (station sum): ${summaryLine(plan.contacts, hasLink)}`);
+  const once = uniqueVolumes(
+    plan.spacecraft.map((s) => s.id),
+    plan.contacts,
+  );
+  parts.push(
+    `Counted once per spacecraft radio (best station at each instant, union of windows): contact time ${formatDuration(once.reduce((s, u) => s + u.contactTimeS, 0))}` +
+      (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : ''),
+  );
   if (clipped) parts.push('"<" / ">": window cut by the start / end of the span.');
   return parts.join('\n') + '\n';
 }
@@ -84,9 +93,9 @@ export function contactRecord(c: Contact): Record<string, string | number | bool
   const rec: Record<string, string | number | boolean | null> = {
     station: c.stationId,
     spacecraft: c.spacecraftId,
-    aos_utc: isoUtc(c.aosMs, 1),
-    tca_utc: isoUtc(c.tcaMs, 1),
-    los_utc: isoUtc(c.losMs, 1),
+    aos_utc: isoUtc(c.aosMs, 3),
+    tca_utc: isoUtc(c.tcaMs, 3),
+    los_utc: isoUtc(c.losMs, 3),
     duration_s: round(c.durationS, 1),
     max_elevation_deg: round(c.maxElevationDeg, 2),
     aos_azimuth_deg: round(c.aosAzimuthDeg, 2),
@@ -99,7 +108,7 @@ export function contactRecord(c: Contact): Record<string, string | number | bool
     rec.volume_bits = Math.round(c.link.volumeBits);
     rec.closed_s = round(c.link.closedS, 1);
     rec.worst_margin_db = round(c.link.worstMarginDb, 2);
-    rec.worst_margin_utc = isoUtc(c.link.worstMarginAtMs, 1);
+    rec.worst_margin_utc = isoUtc(c.link.worstMarginAtMs, 3);
     rec.worst_margin_elevation_deg = round(c.link.worstMarginElevationDeg, 2);
     rec.peak_rate_bps = Math.round(c.link.peakRateBps);
   }
@@ -116,6 +125,16 @@ export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> 
     contacts: plan.contacts.map((c) => ({
       ...contactRecord(c),
       ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
+      ...(c.otherLinks
+        ? {
+            other_radios: c.otherLinks.map((l) => ({
+              radio: l.radioId,
+              volume_bits: l.volumeBits,
+              worst_margin_db: round(l.worstMarginDb, 2),
+              peak_rate_bps: Math.round(l.peakRateBps),
+            })),
+          }
+        : {}),
     })),
     ...extra,
     warnings: plan.warnings,

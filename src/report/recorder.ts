@@ -52,7 +52,7 @@ export function renderRecorderCsv(r: RecorderResult): string {
     for (let i = 0; i < s.tMs.length; i++) {
       const age = s.oldestAgeS[i];
       rows.push([
-        isoUtc(s.tMs[i]!, 0),
+        isoUtc(s.tMs[i]!, 3),
         t.spacecraftId,
         s.storedBits[i]!,
         s.generatedBits[i]!,
@@ -86,13 +86,13 @@ export function recorderJson(r: RecorderResult): Record<string, unknown> {
       stored_at_end_bits: t.finalBits,
       offered_bits: t.offeredBits,
       peak_bits: t.peakBits,
-      peak_utc: isoUtc(t.peakAtMs, 0),
-      first_overflow_utc: t.firstOverflowMs === null ? null : isoUtc(t.firstOverflowMs, 0),
+      peak_utc: isoUtc(t.peakAtMs, 3),
+      first_overflow_utc: t.firstOverflowMs === null ? null : isoUtc(t.firstOverflowMs, 3),
       max_oldest_age_at_downlink_s: t.maxOldestAgeAtDownlinkS === null ? null : Number(t.maxOldestAgeAtDownlinkS.toFixed(1)),
       passes: t.passes.map((p) => ({
         station: p.stationId,
-        data_start_utc: isoUtc(p.dataStartMs, 1),
-        data_end_utc: isoUtc(p.dataEndMs, 1),
+        data_start_utc: isoUtc(p.dataStartMs, 3),
+        data_end_utc: isoUtc(p.dataEndMs, 3),
         offered_bits: p.offeredBits,
         downlinked_bits: p.downlinkedBits,
         backlog_at_start_bits: p.backlogAtStartBits,

@@ -7,6 +7,7 @@
 import { stringify } from 'csv-stringify/sync';
 import type { PlanResult } from '../plan/types.js';
 import type { ContactRef, LostReason, ScheduleResult } from '../plan/schedule.js';
+import type { RecorderResult } from '../plan/recorder.js';
 import { isoUtc, isoInZone } from '../time/format.js';
 import { formatBits, renderTable } from './table.js';
 
@@ -39,7 +40,17 @@ export function reasonText(reason: LostReason, zone?: string, max = 2): string {
 const reasonWith = (reason: LostReason): ContactRef[] =>
   reason.kind === 'overlap' || reason.kind === 'setup' ? reason.with : reason.kind === 'one-station' ? [reason.with] : [];
 
-export function renderScheduleTable(plan: PlanResult, s: ScheduleResult, zone?: string): string {
+/** Bits that left each spacecraft's recorder, when recorders were simulated. */
+function deliveredBySpacecraft(recorders: RecorderResult | undefined): Map<string, number> {
+  return new Map((recorders?.tracks ?? []).map((t) => [t.spacecraftId, t.downlinkedBits]));
+}
+
+/**
+ * "offered" and "capacity taken" are link capacity summed over the windows (station sum);
+ * with recorders, "delivered" is what actually left the recorder.
+ */
+export function renderScheduleTable(plan: PlanResult, s: ScheduleResult, zone?: string, recorders?: RecorderResult): string {
+  const delivered = deliveredBySpacecraft(recorders);
   const parts: string[] = [];
   parts.push(`Antenna schedule (${s.weightRule}${s.oneStationAtATime ? `; one station at a time, ${s.rounds} round${s.rounds === 1 ? '' : 's'}` : ''})`);
   parts.push('');
@@ -58,14 +69,15 @@ export function renderScheduleTable(plan: PlanResult, s: ScheduleResult, zone?: 
     ),
   );
   parts.push('');
-  parts.push('Volume per spacecraft');
+  parts.push('Volume per spacecraft (link capacity summed over the windows; delivered: what left the onboard recorder)');
   parts.push(
     renderTable(
       [
         { header: 'spacecraft' },
         { header: 'priority', align: 'right' },
-        { header: 'offered', align: 'right' },
-        { header: 'delivered', align: 'right' },
+        { header: 'capacity offered', align: 'right' },
+        { header: 'capacity taken', align: 'right' },
+        { header: 'delivered (recorder)', align: 'right' },
         { header: 'lost to conflicts', align: 'right' },
         { header: 'windows taken', align: 'right' },
         { header: 'windows lost', align: 'right' },
@@ -75,6 +87,7 @@ export function renderScheduleTable(plan: PlanResult, s: ScheduleResult, zone?: 
         String(r.priority),
         formatBits(r.offeredBits),
         formatBits(r.deliveredBits),
+        delivered.has(r.spacecraftId) ? formatBits(delivered.get(r.spacecraftId)!) : '-',
         r.offeredBits > 0 ? `${formatBits(r.lostBits)} (${((100 * r.lostBits) / r.offeredBits).toFixed(1)} %)` : formatBits(r.lostBits),
         String(r.takenWindows),
         String(r.lostWindows),
@@ -111,14 +124,14 @@ export function renderScheduleCsv(plan: PlanResult, s: ScheduleResult): string {
     return {
       station: c.stationId,
       spacecraft: c.spacecraftId,
-      aos_utc: isoUtc(c.aosMs, 1),
-      los_utc: isoUtc(c.losMs, 1),
+      aos_utc: isoUtc(c.aosMs, 3),
+      los_utc: isoUtc(c.losMs, 3),
       status: t ? 'taken' : 'lost',
       antenna: t ? t.antenna : '',
       volume_bits: c.link?.volumeBits ?? 0,
       weight: t ? t.weight : '',
       reason: l ? l.reason.kind : '',
-      conflicts_with: l ? reasonWith(l.reason).map((r) => `${r.spacecraftId}@${r.stationId} ${isoUtc(r.aosMs, 1)}`).join('; ') : '',
+      conflicts_with: l ? reasonWith(l.reason).map((r) => `${r.spacecraftId}@${r.stationId} ${isoUtc(r.aosMs, 3)}`).join('; ') : '',
     };
   });
   return stringify(rows, {
@@ -128,8 +141,9 @@ export function renderScheduleCsv(plan: PlanResult, s: ScheduleResult): string {
 }
 
 /** The schedule block of plan.json. */
-export function scheduleJson(plan: PlanResult, s: ScheduleResult): Record<string, unknown> {
-  const ref = (r: ContactRef) => ({ station: r.stationId, spacecraft: r.spacecraftId, aos_utc: isoUtc(r.aosMs, 1), los_utc: isoUtc(r.losMs, 1) });
+export function scheduleJson(plan: PlanResult, s: ScheduleResult, recorders?: RecorderResult): Record<string, unknown> {
+  const delivered = deliveredBySpacecraft(recorders);
+  const ref = (r: ContactRef) => ({ station: r.stationId, spacecraft: r.spacecraftId, aos_utc: isoUtc(r.aosMs, 3), los_utc: isoUtc(r.losMs, 3) });
   return {
     weight_rule: s.weightRule,
     one_station_at_a_time: s.oneStationAtATime,
@@ -145,23 +159,24 @@ export function scheduleJson(plan: PlanResult, s: ScheduleResult): Record<string
     spacecraft: s.spacecraft.map((r) => ({
       spacecraft: r.spacecraftId,
       priority: r.priority,
-      offered_bits: r.offeredBits,
-      delivered_bits: r.deliveredBits,
+      capacity_offered_bits: r.offeredBits,
+      capacity_taken_bits: r.deliveredBits,
+      ...(delivered.has(r.spacecraftId) ? { delivered_from_recorder_bits: delivered.get(r.spacecraftId)! } : {}),
       lost_to_conflicts_bits: r.lostBits,
       windows_taken: r.takenWindows,
       windows_lost: r.lostWindows,
     })),
     taken: s.taken.map((t) => {
       const c = plan.contacts[t.contactIndex]!;
-      return { station: c.stationId, spacecraft: c.spacecraftId, aos_utc: isoUtc(c.aosMs, 1), los_utc: isoUtc(c.losMs, 1), antenna: t.antenna, volume_bits: t.volumeBits };
+      return { station: c.stationId, spacecraft: c.spacecraftId, aos_utc: isoUtc(c.aosMs, 3), los_utc: isoUtc(c.losMs, 3), antenna: t.antenna, volume_bits: t.volumeBits };
     }),
     lost: s.lost.map((l) => {
       const c = plan.contacts[l.contactIndex]!;
       return {
         station: c.stationId,
         spacecraft: c.spacecraftId,
-        aos_utc: isoUtc(c.aosMs, 1),
-        los_utc: isoUtc(c.losMs, 1),
+        aos_utc: isoUtc(c.aosMs, 3),
+        los_utc: isoUtc(c.losMs, 3),
         volume_bits: l.volumeBits,
         reason: l.reason.kind,
         ...(l.reason.kind === 'setup' ? { setup_time_s: l.reason.setupTimeS } : {}),

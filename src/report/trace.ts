@@ -6,8 +6,10 @@
  *
  * Columns carry their units. Fixed rounding, so the same inputs give byte-identical
  * files: angles 0.001 deg, range 0.001 km, range rate 0.00001 km/s, Doppler 0.1 Hz,
- * every dB quantity 0.001 dB, rates to the bit/s. Times are ISO 8601 UTC, to the
- * second when the whole grid is on whole seconds, else to the millisecond.
+ * every dB quantity 0.001 dB, rates to the bit/s. Times are ISO 8601 UTC to the
+ * millisecond. margin_db is the closure margin (above the most robust entry's threshold
+ * plus the required margin, as everywhere else); margin_in_use_db the margin over the
+ * entry in use (adaptive coding: about 0 by construction).
  * Empty cells: geometry when the target had no state; link columns below the
  * horizon or without a radio (see src/plan/trace.ts). in_contact is 1 or 0.
  */
@@ -45,6 +47,7 @@ export const TRACE_COLUMNS = [
   'modcod',
   'rate_bps',
   'shannon_rate_bps',
+  'margin_in_use_db',
 ] as const;
 
 /** Default size of the text batches handed to the sink, characters. */
@@ -60,9 +63,12 @@ function fx(v: number, decimals: number): string {
   return v.toFixed(decimals);
 }
 
-/** Time decimals for a grid: whole seconds when every grid time is a whole second. */
-export function traceTimeDecimals(startMs: number, stepMs: number): number {
-  return startMs % 1000 === 0 && stepMs % 1000 === 0 ? 0 : 3;
+/**
+ * Time decimals of the trace CSV: always milliseconds (ISO 8601 with 3 decimals), like
+ * every machine-readable time passbudget writes; the arguments are kept for callers.
+ */
+export function traceTimeDecimals(_startMs: number, _stepMs: number): number {
+  return 3;
 }
 
 /** One row as CSV fields (a fresh array: the row object itself is reused by the generator). */
@@ -94,10 +100,11 @@ export function traceRecord(r: TraceRow, timeDecimals: number, timeText: string 
   rec[19] = fx(s.cN0DbHz, 3);
   rec[20] = fx(s.ebN0Db, 3);
   rec[21] = fx(s.esN0Db, 3);
-  rec[22] = fx(s.marginDb, 3);
+  rec[22] = fx(s.closureMarginDb, 3);
   rec[23] = r.modcod;
   rec[24] = fx(s.rateBps, 0);
   rec[25] = fx(s.shannonRateBps, 0);
+  rec[26] = fx(s.marginDb, 3);
   return rec;
 }
 

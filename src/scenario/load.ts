@@ -28,6 +28,7 @@ import { parseTleText } from './tle.js';
 import { parseOmm } from './omm.js';
 import { resolveCoding } from './coding.js';
 import { meanMotionAndEccentricity, perigeeProblem } from './elements-common.js';
+import { toFeeds } from './feeds.js';
 import type { ElementSet, OrbitSource, Radio, Scenario, Spacecraft, Station, Span, Mask, Receiver, TxAntenna } from './types.js';
 
 export interface ScenarioFiles {
@@ -178,6 +179,12 @@ function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, proble
   const orbit = toOrbit(entry.orbit, file, `${path}.orbit`, problems);
   const radios = (entry.radios ?? []).map((r, j) => toRadio(r, file, `${path}.radios[${j}]`, problems));
   checkUnique((entry.radios ?? []).map((r) => r.id), file, `${path}.radios`, problems);
+  if (entry.dataRadio !== undefined) {
+    // the data downlink goes first: every stage takes radios[0] as the data downlink
+    const k = radios.findIndex((r) => r.id === entry.dataRadio);
+    if (k < 0) problems.push({ file, path: `${path}.dataRadio`, message: `"${entry.dataRadio}" is not one of its radios (${radios.map((r) => r.id).join(', ') || 'none'})` });
+    else radios.unshift(...radios.splice(k, 1));
+  }
   return {
     id: entry.id,
     name: entry.name ?? entry.id,
@@ -352,6 +359,7 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
     problems.push({ file, path: `${path}.antenna`, message: 'has both gainDbi and dishDiameterM; give one (the gain is computed from the dish)' });
   }
   const c = s.climate ?? {};
+  const feeds = toFeeds(s, receiver, file, path, problems);
   return {
     id: s.id,
     name: s.name ?? s.id,
@@ -360,7 +368,7 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
     heightKm: s.heightM / 1000,
     mask,
     timeZone: s.timeZone,
-    receiver,
+    receiver: feeds ? feeds[0]!.receiver : receiver,
     pointingErrorDeg: a.pointingErrorDeg ?? 0,
     polarization: a.polarization ?? 'RHCP',
     climate: {
@@ -374,5 +382,6 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
     },
     antennaCount: a.count ?? 1,
     setupTimeS: a.setupTimeS ?? 0,
+    ...(feeds ? { feeds } : {}),
   };
 }

@@ -117,6 +117,8 @@ export const spacecraftSchema = z
     priority: range(0, 1000).optional(),
     orbit: orbitSchema,
     radios: z.array(radioSchema).optional(),
+    /** Id of the radio that is the data downlink (totals, recorder, sizing); default: the first. */
+    dataRadio: id().optional(),
     recorder: z
       .object({
         capacityGbit: positive(),
@@ -149,6 +151,58 @@ export const spacecraftFileSchema = z
     spacecraft: z.array(spacecraftSchema).min(1, { message: 'must list at least one spacecraft' }),
   })
   .strict();
+
+// ---- station feeds (self-contained block): what bands a station can hear, each with its
+// own gain or dish and its own receive chain or G/T; missing parts come from the station.
+/** IEEE Std 521-2019 radar-band letters (common practice), MHz. */
+export const BAND_RANGES_MHZ: Record<string, [number, number]> = {
+  L: [1000, 2000],
+  S: [2000, 4000],
+  C: [4000, 8000],
+  X: [8000, 12000],
+  Ku: [12000, 18000],
+  K: [18000, 27000],
+  Ka: [27000, 40000],
+};
+
+export const feedSchema = z
+  .object({
+    id: id(),
+    band: z.enum(Object.keys(BAND_RANGES_MHZ) as [string, ...string[]], { message: `must be one of ${Object.keys(BAND_RANGES_MHZ).join(', ')} (IEEE Std 521)` }).optional(),
+    fromMHz: range(100, 400_000).optional(),
+    toMHz: range(100, 400_000).optional(),
+    gainDbi: range(-10, 90).optional(),
+    dishDiameterM: positive().optional(),
+    apertureEfficiency: finite()
+      .refine((v) => v > 0 && v <= 1, { message: 'must be in (0, 1]' })
+      .optional(),
+    receiver: z
+      .object({
+        noiseTempK: positive().optional(),
+        noiseFigureDb: range(0, 20).optional(),
+        feedLossDb: range(0, 10).optional(),
+        feedTempK: range(0, 400).optional(),
+        antennaNoiseK: range(0, 1000).optional(),
+        gOverTDbK: range(-40, 70).optional(),
+        gOverTAtElevationDeg: range(0, 90).optional(),
+      })
+      .strict()
+      .superRefine(exactlyOne(['noiseTempK', 'noiseFigureDb', 'gOverTDbK']))
+      .optional(),
+  })
+  .strict()
+  .superRefine((f, ctx) => {
+    const hasRange = f.fromMHz !== undefined || f.toMHz !== undefined;
+    if ((f.band === undefined) === !hasRange) {
+      ctx.addIssue({ code: 'custom', message: 'give a band or a frequency range (fromMHz and toMHz), not both or neither' });
+    } else if (hasRange && (f.fromMHz === undefined || f.toMHz === undefined || !(f.toMHz > f.fromMHz))) {
+      ctx.addIssue({ code: 'custom', message: 'needs fromMHz < toMHz' });
+    }
+    if (f.gainDbi !== undefined && f.dishDiameterM !== undefined) {
+      ctx.addIssue({ code: 'custom', message: 'has both gainDbi and dishDiameterM; give one' });
+    }
+  });
+// ---- end of station feeds
 
 const timeZone = () =>
   text().refine((v) => IANAZone.isValidZone(v), { message: 'is not an IANA time zone (e.g. "Europe/Oslo", "UTC")' });
@@ -214,6 +268,8 @@ export const stationSchema = z
         }
       })
       .optional(),
+    /** Bands the station can hear (default: one feed, the station's antenna and receiver, any frequency). */
+    feeds: z.array(feedSchema).min(1, { message: 'must list at least one feed (or leave feeds out)' }).optional(),
   })
   .strict()
   .superRefine((s, ctx) => {
@@ -235,3 +291,4 @@ export type SpacecraftEntry = z.infer<typeof spacecraftSchema>;
 export type RadioEntry = z.infer<typeof radioSchema>;
 export type NetworkFile = z.infer<typeof networkFileSchema>;
 export type StationEntry = z.infer<typeof stationSchema>;
+export type FeedEntry = z.infer<typeof feedSchema>;

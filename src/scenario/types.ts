@@ -107,6 +107,7 @@ export interface Spacecraft {
   name: string;
   priority: number;
   orbit: OrbitSource;
+  /** The data downlink (totals, recorder, sizing) first (the file's dataRadio, default its first), then the others. */
   radios: Radio[];
   /** Onboard recorder (network planning). */
   recorder?: {
@@ -178,6 +179,19 @@ export interface Station {
   climate: Climate;
   antennaCount: number;
   setupTimeS: number;
+  /**
+   * What the station can hear: each feed covers [minHz, maxHz] with its own receiver
+   * (gain or dish and a receive chain or G/T). Absent: one feed, the station's receiver,
+   * covering every frequency (scenario/feeds.ts feedFor). With feeds, `receiver` is the first feed's.
+   */
+  feeds?: Feed[];
+}
+
+export interface Feed {
+  id: string;
+  minHz: number;
+  maxHz: number;
+  receiver: Receiver;
 }
 
 /** A span to walk: [startMs, endMs). */

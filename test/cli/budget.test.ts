@@ -88,6 +88,9 @@ describe('Roddy, Satellite Communications 4th ed., Example 12.9 (C/N0 = 86.1 dB-
       '--atmosphere-db', String(item(ex, 'atmospheric_absorption')),
       '--pointing-loss-db', String(item(ex, 'antenna_pointing_loss')),
       '--extra-loss-db', String(item(ex, 'receiver_feeder_loss')),
+      // the book takes its G/T as the G/T of the budget's conditions (no noise added by the
+      // 2 dB of absorption, which --atmosphere-db alone would add): give it as such
+      '--g-over-t-db-k', String(item(ex, 'receiver_g_over_t')),
     ]);
     expect(Math.abs(term(terms, 'Free-space loss') + item(ex, 'free_space_loss'))).toBeLessThan(1e-9);
     expect(Math.abs(term(terms, 'G/T') - item(ex, 'receiver_g_over_t'))).toBeLessThan(1e-9);
@@ -153,5 +156,73 @@ describe('budget input errors', () => {
     });
     expect(code).toBe(2);
     expect(err).toMatch(/--elevation: "95" must be a number in 0\.\.90/);
+  });
+});
+
+// --atmosphere-db replaces the modelled atmosphere AND its sky noise. ITU-R P.618-14 sec. 3:
+// Tsky = Tmr (1 - 10^(-A/10)) + Tc 10^(-A/10), Tc = 2.7 K the cosmic background, Tmr = 275 K
+// when no local value is known (the recommendation's suggested value). So A = 0 leaves the
+// cosmic background alone; the receive chain's G/T then follows by hand (common practice):
+// Tsys = (Tsky + Tant) / Lf + Tf (1 - 1/Lf) + Trx at the LNA input, G/T = G - Lf - 10 log10 Tsys.
+describe('budget --atmosphere-db: the sky noise follows from the given attenuation', () => {
+  const eqp = { dishM: 6.1, eta: 0.6, trxK: 90, feedLossDb: 0.3, feedK: 300, tantK: 18 }; // stations/demo-network.yaml
+  const freqHz = 8212.5e6; // KESTREL-1 X-PAYLOAD
+  const handGt = (tskyK: number): number => {
+    const lf = 10 ** (eqp.feedLossDb / 10);
+    const tsys = (tskyK + eqp.tantK) / lf + eqp.feedK * (1 - 1 / lf) + eqp.trxK;
+    const gainDbi = 10 * Math.log10(eqp.eta * ((Math.PI * eqp.dishM * freqHz) / C_M_S) ** 2);
+    return gainDbi - eqp.feedLossDb - 10 * Math.log10(tsys);
+  };
+  const tsky = (a: number) => 275 * (1 - 10 ** (-a / 10)) + 2.7 * 10 ** (-a / 10);
+
+  it('A = 0 dB: sky noise 2.7 K (cosmic background), G/T by hand (0.01 dB)', async () => {
+    const t = await budget(['--spacecraft-id', 'KESTREL-1', '--station-id', 'EQP', '--elevation', '5', '--atmosphere-db', '0']);
+    expect(term(t, "Sky noise temperature")).toBeCloseTo(2.7, 6);
+    expect(Math.abs(term(t, 'G/T') - handGt(2.7))).toBeLessThan(0.01);
+    expect(Math.abs(term(t, "Atmosphere total"))).toBeLessThan(1e-12);
+  });
+
+  for (const a of [0.5, 3, 10]) {
+    it(`A = ${a} dB: sky noise by the P.618-14 sec. 3 formula (1e-6 K), G/T by hand (0.01 dB)`, async () => {
+      const t = await budget(['--spacecraft-id', 'KESTREL-1', '--station-id', 'EQP', '--elevation', '5', '--atmosphere-db', String(a)]);
+      expect(term(t, "Sky noise temperature")).toBeCloseTo(tsky(a), 6);
+      expect(Math.abs(term(t, 'G/T') - handGt(tsky(a)))).toBeLessThan(0.01);
+      expect(term(t, 'Atmosphere total')).toBeCloseTo(-a, 12);
+    });
+  }
+
+  it('says where the sky noise came from', async () => {
+    let out = '';
+    const code = await run(['budget', '--spacecraft-id', 'KESTREL-1', '--station-id', 'EQP', '--elevation', '5', '--atmosphere-db', '0'], {
+      out: (t) => (out += t), err: () => {}, isTty: false, nowMs: () => 0,
+    });
+    expect(code).toBe(0);
+    expect(out).toMatch(/Sky noise temperature .*P\.618-14 sec\. 3 from the given attenuation/);
+  });
+
+  it('size one-geometry mode takes the same overrides: required power = P - margin of that budget', async () => {
+    const t = await budget(['--spacecraft-id', 'HERON-2', '--station-id', 'SAL', '--elevation', '10', '--atmosphere-db', '0', '--extra-loss-db', '2']);
+    let out = '';
+    const code = await run(
+      ['size', '--spacecraft-id', 'HERON-2', '--station-id', 'SAL', '--elevation', '10', '--atmosphere-db', '0', '--extra-loss-db', '2', '--target-rate-bps', '1000000', '--format', 'json', '--no-write'],
+      { out: (x) => (out += x), err: () => {}, isTty: false, nowMs: () => 0 },
+    );
+    expect(code).toBe(0);
+    const j = JSON.parse(out) as Record<string, unknown>;
+    const required = Number(JSON.stringify(j).match(/"required_power_dbw":(-?[\d.e+-]+)/)![1]);
+    // HERON-2 has a fixed code: margin is linear in power with slope 1 dB/dB
+    expect(Math.abs(required - (term(t, 'Transmit power') - term(t, 'Margin')))).toBeLessThan(0.01);
+  });
+});
+
+describe('a Moon target with --range-km and no elevation', () => {
+  it('is refused (exit 2, one line): its elevation does not follow from a range', async () => {
+    let err = '';
+    const code = await run(['budget', '--spacecraft-id', 'MOONWREN', '--station-id', 'SAL', '--range-km', '384400'], {
+      out: () => {}, err: (t) => (err += t), isTty: false, nowMs: () => 0,
+    });
+    expect(code).toBe(2);
+    expect(err.trim().split('\n')).toHaveLength(1);
+    expect(err).toMatch(/MOONWREN is at the Moon; .*give --elevation/);
   });
 });

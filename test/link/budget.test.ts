@@ -215,7 +215,16 @@ describe('budgetTerms', () => {
       expect(get('EIRP')).toBe(out.eirpDbw);
       expect(get('Transmit power') + get('Transmit losses') + get('Transmit antenna gain')).toBeCloseTo(get('EIRP'), 12);
       expect(get('C/N0')).toBe(out.cN0DbHz);
-      expect(get('Margin')).toBe(out.marginDb);
+      // the printed margin is the closure margin (above the most robust entry's threshold plus
+      // the required margin); for fixed coding it is the code's margin
+      expect(get('Margin')).toBe(out.closureMarginDb);
+      if (p.codingKind === 'fixed') expect(out.closureMarginDb).toBe(out.marginDb);
+      else {
+        const robust = Math.min(...p.modcodTable.map((e) => e.esN0ThresholdDb));
+        expect(out.closureMarginDb).toBeCloseTo(out.esN0Db - p.implementationLossDb - robust - p.requiredMarginDb, 12);
+        expect(out.closureMarginDb).toBeGreaterThanOrEqual(out.marginDb);
+        expect(get('Margin over the entry in use')).toBe(out.marginDb);
+      }
       expect(get('Free-space loss')).toBe(-out.freeSpaceLossDb);
     }
   });

@@ -95,6 +95,54 @@ describe('demo week: fast contact search vs 1 s brute force', () => {
     }
   });
 
+  // Issue: the refinement memo was keyed by time only, so a window cut by the span edge
+  // read another station's look angles at that instant. Check every window (clipped ones
+  // included) against a direct evaluation of lookFrom (topocentric.ts, itself checked
+  // against astronomy-engine in test/geometry/look.test.ts) for its own station, and the
+  // maximum against a scan of the window refined by golden-section search. Tolerance 0.01 deg (the printed precision).
+  it('reports each window with its own station\'s look angles at AOS, LOS and the maximum (0.01 deg)', () => {
+    const state = new Float64Array(6);
+    const look = newLook();
+    const at = (p: Pass, tMs: number) => {
+      const i = geometry.sites.findIndex((s) => s.stationId === p.stationId);
+      expect(geometry.targets.get(p.spacecraftId)!.stateEcefAt(tMs, state)).toBe(true);
+      lookFrom(geometry.sites[i]!, state, look);
+      return { az: look.azimuthDeg, el: look.elevationDeg };
+    };
+    const azDiff = (a: number, b: number) => Math.abs(((a - b + 540) % 360) - 180);
+    let clipped = 0;
+    for (const p of fast) {
+      if (p.aosClipped || p.losClipped) clipped++;
+      const a = at(p, p.aosMs);
+      const l = at(p, p.losMs);
+      expect(azDiff(p.aosAzimuthDeg, a.az), `AOS azimuth ${p.spacecraftId}/${p.stationId} ${p.aosMs}`).toBeLessThan(0.01);
+      expect(azDiff(p.losAzimuthDeg, l.az), `LOS azimuth ${p.spacecraftId}/${p.stationId} ${p.losMs}`).toBeLessThan(0.01);
+      expect(Math.abs(p.aosElevationDeg! - a.el), `AOS elevation ${p.spacecraftId}/${p.stationId}`).toBeLessThan(0.01);
+      expect(Math.abs(p.losElevationDeg! - l.el), `LOS elevation ${p.spacecraftId}/${p.stationId}`).toBeLessThan(0.01);
+      expect(Math.abs(p.maxElevationDeg - at(p, p.tcaMs).el), `max at TCA ${p.spacecraftId}/${p.stationId}`).toBeLessThan(0.01);
+      // scan (1 s, or 1/2000 of a long window), then golden-section around the best sample
+      const stepMs = Math.max(1000, (p.losMs - p.aosMs) / 2000);
+      let bestT = p.aosMs;
+      let best = -Infinity;
+      for (let t = p.aosMs; t <= p.losMs; t += stepMs) {
+        const e = at(p, t).el;
+        if (e > best) [best, bestT] = [e, t];
+      }
+      let lo = Math.max(p.aosMs, bestT - stepMs);
+      let hi = Math.min(p.losMs, bestT + stepMs);
+      const gr = (Math.sqrt(5) - 1) / 2;
+      while (hi - lo > 1) {
+        const x1 = hi - gr * (hi - lo);
+        const x2 = lo + gr * (hi - lo);
+        if (at(p, x1).el >= at(p, x2).el) hi = x2;
+        else lo = x1;
+      }
+      const scanMax = Math.max(a.el, l.el, best, at(p, 0.5 * (lo + hi)).el);
+      expect(Math.abs(p.maxElevationDeg - scanMax), `max vs scan ${p.spacecraftId}/${p.stationId}`).toBeLessThan(0.01);
+    }
+    expect(clipped).toBeGreaterThan(10);
+  });
+
   it('gives the geostationary craft one window spanning the week where it is visible', () => {
     const geo = fast.filter((p) => p.spacecraftId === 'ANCHOR-G');
     expect(geo.length).toBeGreaterThan(0);

@@ -9,6 +9,7 @@ import { loadScenario } from '../../src/scenario/load.js';
 import { demoFiles } from '../../src/scenario/paths.js';
 import { runPlan } from '../../src/plan/run.js';
 import { scheduleContacts } from '../../src/plan/schedule.js';
+import { uniqueVolumeOf } from '../../src/plan/unique-volume.js';
 import { pointLink, prepareSizingContext, sizeForWeek, sizePowerAtGeometry, type VolumeBasis } from '../../src/plan/sizing.js';
 import { evaluateLink } from '../../src/link/budget.js';
 import { newLinkSample } from '../../src/link/types.js';
@@ -26,9 +27,9 @@ function withRadio(s: Scenario, id: string, edit: (r: Radio) => Radio): Scenario
 /** Delivered bits per day of one spacecraft, by the whole pipeline from scratch. */
 function deliveredPerDay(s: Scenario, id: string, basis: VolumeBasis): number {
   const plan = runPlan(s, span, { linkStepS: STEP_S });
-  if (basis === 'unscheduled') return plan.contacts.filter((c) => c.spacecraftId === id).reduce((a, c) => a + (c.link?.volumeBits ?? 0), 0);
+  if (basis === 'unscheduled') return uniqueVolumeOf(id, plan.contacts).volumeBits;
   const sched = scheduleContacts(plan, s.stations, s.spacecraft);
-  return sched.taken.filter((t) => plan.contacts[t.contactIndex]!.spacecraftId === id).reduce((a, t) => a + t.volumeBits, 0);
+  return uniqueVolumeOf(id, sched.taken.map((t) => plan.contacts[t.contactIndex]!)).volumeBits;
 }
 
 describe('week sizing round trips (first demo day)', () => {
@@ -97,5 +98,36 @@ describe('one-geometry power against evaluateLink', () => {
     const res = sizePowerAtGeometry(scenario, { spacecraftId: 'DRIFTER', stationId: 'SAL', elevationDeg: 30, targetRateBps: 2 * rateBps });
     expect(res.requiredPowerDbw).toBeNull();
     expect(res.why).toContain(`${rateBps} bit/s`);
+  });
+});
+
+// The "stop the scan with a note" path of week sizing: growing MDL's dish narrows its beam
+// until the 12 (theta/theta3dB)^2 pointing-loss model (valid only inside the 3 dB beamwidth,
+// theta3dB ~ 70 lambda / D: common practice, see src/link/antenna.ts) is asked for outside
+// its range. That is a ModelRangeError kept as such (not a bad-input ScenarioError): the
+// scan ends there with a note, and the unreachable target exits 1, never 2.
+describe('size: a candidate outside a model\'s range ends the scan with a note', () => {
+  it('size --spacecraft-id KESTREL-1 --solve dish --station-id MDL --target-gbit-per-day 100000 --days 1: note, exit 1', async () => {
+    const { run } = await import('../../src/cli/main.js');
+    let out = '';
+    let err = '';
+    const code = await run(
+      ['size', '--spacecraft-id', 'KESTREL-1', '--solve', 'dish', '--station-id', 'MDL', '--target-gbit-per-day', '100000', '--days', '1', '--no-write'],
+      { out: (t) => void (out += t), err: (t) => void (err += t), isTty: false, nowMs: () => 0 },
+    );
+    expect(err).not.toMatch(/^error:/m);
+    expect(code).toBe(1);
+    const m = /Note: stopped at ([\d.]+) m: radio (\S+) at station MDL: pointing loss/.exec(out);
+    expect(m, out).not.toBeNull();
+    // the first scanned dish whose beam is narrower than MDL's 0.08 deg pointing error, for the
+    // highest frequency received there (ANCHOR-G's 20.2 GHz): D > 70 lambda / 0.08 deg, and the
+    // previous scan step (x1/1.25) is not
+    const lambdaM = 299_792_458 / 20.2e9;
+    const dLimitM = (70 * lambdaM) / 0.08;
+    const stopped = Number(m![1]);
+    expect(m![2]).toBe('KA-DATA');
+    expect(stopped).toBeGreaterThan(dLimitM);
+    expect(stopped / 1.25).toBeLessThan(dLimitM);
+    expect(out).toMatch(/Not reachable/);
   });
 });

@@ -34,14 +34,19 @@ export interface ReportInput {
   recorderSvg?: string;
 }
 
-function facts(plan: PlanResult): string {
+/** Headline: volume and contact time counted once per spacecraft radio (unique-volume.ts), station-sum beside. */
+function facts(plan: PlanResult, totals: readonly SpacecraftTotal[]): string {
   const hasLink = plan.contacts.some((c) => c.link);
-  const totalBits = plan.contacts.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0);
-  const totalS = plan.contacts.reduce((s, c) => s + c.durationS, 0);
+  const onceBits = totals.reduce((s, t) => s + t.volumeBits, 0);
+  const sumBits = totals.reduce((s, t) => s + t.stationSumVolumeBits, 0);
+  const onceS = totals.reduce((s, t) => s + t.contactTimeS, 0);
+  const delivered = totals.some((t) => t.deliveredBits !== undefined) ? totals.reduce((s, t) => s + (t.deliveredBits ?? 0), 0) : undefined;
   const items: [string, string][] = [
     ['contacts', String(plan.contacts.length)],
-    ['contact time', formatDuration(totalS)],
-    ['volume', hasLink ? formatBits(totalBits) : '-'],
+    ['contact time (counted once)', formatDuration(onceS)],
+    [delivered === undefined ? 'volume (counted once)' : 'link capacity (counted once)', hasLink ? formatBits(onceBits) : '-'],
+    ...(delivered !== undefined ? ([['delivered (recorders)', formatBits(delivered)]] as [string, string][]) : []),
+    ['station-sum volume', hasLink ? formatBits(sumBits) : '-'],
     ['stations', String(plan.stations.length)],
     ['spacecraft', String(plan.spacecraft.length)],
     ['availability', `${plan.availabilityPercent} %`],
@@ -56,11 +61,12 @@ function spacecraftTable(plan: PlanResult, totals: readonly SpacecraftTotal[]): 
     const i = (idx.get(t.spacecraftId) ?? 0) % 8;
     return (
       `<tr><td><span class="swatch bg-sc${i}"></span>${esc(t.spacecraftId)}</td><td class="text">${esc(name.get(t.spacecraftId) ?? '')}</td>` +
-      `<td>${t.contactCount}</td><td>${formatDuration(t.contactTimeS)}</td><td data-volume-bits="${t.volumeBits}">${formatBits(t.volumeBits)}</td></tr>`
+      `<td>${t.contactCount}</td><td>${formatDuration(t.contactTimeS)}</td><td data-volume-bits="${t.volumeBits}">${formatBits(t.volumeBits)}</td>` +
+      `<td>${formatBits(t.stationSumVolumeBits)}</td></tr>`
     );
   });
   return [
-    '<table class="spacecraft"><thead><tr><th>spacecraft</th><th class="text">name</th><th>contacts</th><th>contact time</th><th>volume</th></tr></thead>',
+    '<table class="spacecraft"><thead><tr><th>spacecraft</th><th class="text">name</th><th>contacts</th><th>contact time (union)</th><th>volume (counted once)</th><th>station-sum volume</th></tr></thead>',
     `<tbody>${rows.join('\n')}</tbody></table>`,
   ].join('\n');
 }
@@ -94,7 +100,7 @@ export function renderReportHtml(input: ReportInput): string {
 <p class="kicker">passbudget · contact plan</p>
 <h1>${esc(span)}</h1>
 <p class="sub">Link at ${plan.availabilityPercent} % availability, sampled every ${plan.linkStepS} s inside contacts. All times UTC.</p>
-${facts(plan)}
+${facts(plan, input.spacecraftTotals)}
 </header>
 <section id="spacecraft"><h2>Spacecraft</h2>
 <p class="note">Totals over the span; colours mark each spacecraft in the timeline and charts.</p>

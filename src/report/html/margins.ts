@@ -12,6 +12,8 @@ export interface MarginRow {
   /** Lowest margin seen over the plan's contacts, dB. */
   worstSeenMarginDb: number;
   pass: boolean;
+  /** A pair with no contact in the span: neither pass nor fail. */
+  notVisible?: boolean;
 }
 
 const db = (v: number) => (Number.isFinite(v) ? v.toFixed(1) : '-');
@@ -20,11 +22,11 @@ export function renderMarginsSection(margins: readonly MarginRow[] | undefined):
   if (!margins || margins.length === 0) {
     return '<p class="note">No margin check was run with this plan.</p>';
   }
-  const failed = margins.filter((m) => !m.pass).length;
+  const failed = margins.filter((m) => !m.pass && !m.notVisible).length;
   const rows = margins.map(
     (m) =>
       `<tr><td>${esc(m.station)}</td><td>${esc(m.spacecraft)}</td><td>${db(m.maskMarginDb)}</td><td>${db(m.worstSeenMarginDb)}</td>` +
-      `<td class="${m.pass ? 'pass' : 'fail'}">${m.pass ? 'pass' : 'FAIL'}</td></tr>`,
+      (m.notVisible ? '<td>not visible</td></tr>' : `<td class="${m.pass ? 'pass' : 'fail'}">${m.pass ? 'pass' : 'FAIL'}</td></tr>`),
   );
   return [
     `<p class="note">${margins.length} pair${margins.length === 1 ? '' : 's'} checked, ${failed} failed.</p>`,

@@ -1,0 +1,147 @@
+/**
+ * The unique-volume rule: a spacecraft radio sends one stream, so its data counts once
+ * however many stations receive it at the same time.
+ *
+ * Rule (ours, stated in full): at each instant the spacecraft's data is credited to the
+ * best station in contact then, the one whose link supports the highest rate; the
+ * spacecraft's volume is the integral of that largest rate over time. Equivalently, for
+ * each cluster of overlapping windows (a chain of windows of the spacecraft, each
+ * starting before the ones before it have all ended) the volume is the integral of the
+ * maximum of the contacts' rate step functions (ContactLink.ratePieces, the same pieces
+ * the per-contact volumes integrate); a window overlapping no other keeps its own volume
+ * and its own 15-minute bins. Hence, per spacecraft:
+ *   unique volume <= station-sum volume, equal where no two windows overlap;
+ *   contact time = the length of the union of its windows (<= the span).
+ * A station's own volume (per contact, per station-day) stays what that station can
+ * receive: only totals across stations use this rule.
+ * Whole bits: the cluster's 15-minute bins are rounded by their running sum
+ * (wholeBitBins), then capped by the cluster's station-sum.
+ * Pure: no I/O.
+ */
+import { wholeBitBins } from './link.js';
+import { VOLUME_BIN_MS, type Contact } from './types.js';
+
+export interface UniqueVolume {
+  spacecraftId: string;
+  /** The data counted once (best station at each instant), whole bits. */
+  volumeBits: number;
+  /** The plain sum of the contacts' volumes (simultaneous reception counted at each station). */
+  stationSumBits: number;
+  /** Length of the union of the spacecraft's windows, s. */
+  contactTimeS: number;
+  /** Sum of the window durations over all stations, s. */
+  stationSumContactTimeS: number;
+  /** Unique volume per absolute 15-minute UTC bin: bin start ms -> whole bits. */
+  binsBits: Map<number, number>;
+}
+
+/** Integral of max over contacts of their rate pieces, into absolute 15-min bins (fractional bits). */
+function maxRateBins(cluster: readonly Contact[]): Map<number, number> {
+  const edges: number[] = [];
+  const lists: number[][] = [];
+  for (const c of cluster) {
+    const p = c.link?.ratePieces;
+    if (!p) {
+      if ((c.link?.volumeBits ?? 0) > 0) throw new Error(`unique volume: contact of ${c.spacecraftId} at ${c.stationId} overlaps another but has no rate pieces (a bug)`);
+      continue;
+    }
+    lists.push(p);
+    for (let i = 0; i < p.length; i += 3) edges.push(p[i]!, p[i + 1]!);
+  }
+  const bins = new Map<number, number>();
+  if (edges.length === 0) return bins;
+  edges.sort((a, b) => a - b);
+  const first = Math.floor(edges[0]! / VOLUME_BIN_MS) * VOLUME_BIN_MS;
+  const lastMs = edges[edges.length - 1]!;
+  for (let e = first + VOLUME_BIN_MS; e < lastMs; e += VOLUME_BIN_MS) edges.push(e);
+  edges.sort((a, b) => a - b);
+  const ptr = lists.map(() => 0);
+  for (let k = 0; k + 1 < edges.length; k++) {
+    const a = edges[k]!;
+    const b = edges[k + 1]!;
+    if (!(b > a)) continue;
+    const mid = 0.5 * (a + b);
+    let best = 0;
+    lists.forEach((p, j) => {
+      let i = ptr[j]!;
+      while (i < p.length && p[i + 1]! <= mid) i += 3;
+      ptr[j] = i;
+      if (i < p.length && p[i]! <= mid && p[i + 2]! > best) best = p[i + 2]!;
+    });
+    if (best <= 0) continue;
+    const bin = Math.floor(mid / VOLUME_BIN_MS) * VOLUME_BIN_MS;
+    bins.set(bin, (bins.get(bin) ?? 0) + (best * (b - a)) / 1000);
+  }
+  return bins;
+}
+
+function addBins(into: Map<number, number>, binStartMs: number, bins: readonly number[]): void {
+  bins.forEach((bits, i) => {
+    if (bits === 0) return;
+    const t = binStartMs + i * VOLUME_BIN_MS;
+    into.set(t, (into.get(t) ?? 0) + bits);
+  });
+}
+
+/** One spacecraft's unique volume from its contacts (any order). */
+export function uniqueVolumeOf(spacecraftId: string, contacts: readonly Contact[]): UniqueVolume {
+  const list = contacts.filter((c) => c.spacecraftId === spacecraftId).sort((a, b) => a.aosMs - b.aosMs);
+  const out: UniqueVolume = { spacecraftId, volumeBits: 0, stationSumBits: 0, contactTimeS: 0, stationSumContactTimeS: 0, binsBits: new Map() };
+  let i = 0;
+  while (i < list.length) {
+    // one cluster of overlapping windows
+    let reachMs = list[i]!.losMs;
+    let j = i + 1;
+    while (j < list.length && list[j]!.aosMs < reachMs) {
+      reachMs = Math.max(reachMs, list[j]!.losMs);
+      j++;
+    }
+    const cluster = list.slice(i, j);
+    out.contactTimeS += (reachMs - cluster[0]!.aosMs) / 1000;
+    let sum = 0;
+    for (const c of cluster) {
+      out.stationSumContactTimeS += c.durationS;
+      sum += c.link?.volumeBits ?? 0;
+    }
+    out.stationSumBits += sum;
+    if (cluster.length === 1) {
+      const l = cluster[0]!.link;
+      if (l) {
+        out.volumeBits += l.volumeBits;
+        addBins(out.binsBits, l.binStartMs, l.volumeBinsBits);
+      }
+    } else {
+      const frac = maxRateBins(cluster);
+      const keys = [...frac.keys()].sort((a, b) => a - b);
+      const whole = wholeBitBins(keys.map((k) => frac.get(k)!));
+      let total = 0;
+      keys.forEach((k, n) => {
+        // cap by the station-sum (rounding of whole bits could otherwise add a bit)
+        const bits = Math.min(whole.bins[n]!, sum - total);
+        total += bits;
+        if (bits !== 0) out.binsBits.set(k, (out.binsBits.get(k) ?? 0) + bits);
+      });
+      out.volumeBits += total;
+    }
+    i = j;
+  }
+  return out;
+}
+
+/** Unique volumes of every spacecraft, in the given order. */
+export function uniqueVolumes(spacecraftIds: readonly string[], contacts: readonly Contact[]): UniqueVolume[] {
+  const bySc = new Map<string, Contact[]>();
+  for (const c of contacts) {
+    const l = bySc.get(c.spacecraftId);
+    if (l) l.push(c);
+    else bySc.set(c.spacecraftId, [c]);
+  }
+  return spacecraftIds.map((id) => uniqueVolumeOf(id, bySc.get(id) ?? []));
+}
+
+/** Unique bits of all spacecraft whose bin starts in [startMs, endMs). */
+export function uniqueBitsIn(volumes: readonly UniqueVolume[], startMs: number, endMs: number): number {
+  let s = 0;
+  for (const v of volumes) for (const [t, b] of v.binsBits) if (t >= startMs && t < endMs) s += b;
+  return s;
+}
