@@ -4,6 +4,9 @@ import { loadScenario } from '../scenario/load.js';
 import { demoFiles } from '../scenario/paths.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
+import { climateReports } from './climate.js';
+import { linkExceedancePercent } from '../plan/link.js';
+import { renderClimateTable } from '../report/climate.js';
 
 export function registerCheck(program: Command, io: CliIo, setExit: SetExit): void {
   program
@@ -17,9 +20,12 @@ export function registerCheck(program: Command, io: CliIo, setExit: SetExit): vo
       const scenario = loadScenario(files); // throws ScenarioError with every problem
       const sets = scenario.spacecraft.reduce((n, s) => n + (s.orbit.kind === 'elements' ? s.orbit.sets.length : 0), 0);
       const radios = scenario.spacecraft.reduce((n, s) => n + s.radios.length, 0);
+      const p = linkExceedancePercent(scenario.link);
+      const climate = renderClimateTable(climateReports(scenario, p), p); // a station the maps cannot serve: ScenarioError
       io.out(
         `ok: ${files.spacecraftFile}: ${scenario.spacecraft.length} spacecraft, ${sets} element sets, ${radios} radios\n` +
-          `ok: ${files.networkFile}: ${scenario.stations.length} stations\n`,
+          `ok: ${files.networkFile}: ${scenario.stations.length} stations\n\n` +
+          climate,
       );
       setExit(0);
     });

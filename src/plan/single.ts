@@ -16,7 +16,8 @@ import { budgetTerms } from '../link/budget.js';
 import type { AtmosphereResult, AtmosphereTable } from '../link/atmosphere/types.js';
 import type { BudgetTerm, PreparedLink } from '../link/types.js';
 import type { Radio, Scenario, Spacecraft } from '../scenario/types.js';
-import { lowestMaskDeg, prepareRadioAtStation } from './link.js';
+import { linkExceedancePercent, lowestMaskDeg, prepareRadioAtStation } from './link.js';
+import { stationClimate, type StationClimate } from '../link/climate/station.js';
 
 export const MOON_MEAN_DISTANCE_KM = 384_400;
 
@@ -39,6 +40,8 @@ export interface SingleBudget {
   look: Look;
   orbitRadiusKm: number;
   terms: BudgetTerm[];
+  /** The station's climate inputs and where each came from (file or ITU-R map). */
+  climate: StationClimate;
 }
 
 /** Typical geocentric distance of the spacecraft, km. */
@@ -113,5 +116,7 @@ export function singleBudget(scenario: Scenario, req: SingleBudgetRequest): Sing
     if (req.pointingLossDb !== undefined && t.name === 'Pointing loss') return { ...t, source: 'given (--pointing-loss-db)' };
     return t;
   });
-  return { spacecraftId: sc.id, stationId: req.stationId, radioId: radio.id, look, orbitRadiusKm, terms };
+  const station = scenario.stations.find((s) => s.id === req.stationId)!; // preparePoint checked it
+  const climate = stationClimate(station, linkExceedancePercent(scenario.link));
+  return { spacecraftId: sc.id, stationId: req.stationId, radioId: radio.id, look, orbitRadiusKm, terms, climate };
 }
