@@ -6,6 +6,9 @@ import { ScenarioError } from '../errors.js';
 import { preflight } from '../plan/preflight.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
+import { climateReports } from './climate.js';
+import { linkExceedancePercent } from '../plan/link.js';
+import { renderClimateTable } from '../report/climate.js';
 
 export function registerCheck(program: Command, io: CliIo, setExit: SetExit): void {
   program
@@ -17,6 +20,8 @@ export function registerCheck(program: Command, io: CliIo, setExit: SetExit): vo
       const demo = demoFiles();
       const files = { spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile };
       const scenario = loadScenario(files); // throws ScenarioError with every problem
+      const p = linkExceedancePercent(scenario.link);
+      const climate = renderClimateTable(climateReports(scenario, p), p); // a station the maps cannot serve: ScenarioError naming the file
       // the model-range checks plan runs, for every radio at every station, and plan's warnings
       const deeper = preflight(scenario, scenario.span);
       if (deeper.problems.length > 0) throw new ScenarioError(deeper.problems);
@@ -25,7 +30,8 @@ export function registerCheck(program: Command, io: CliIo, setExit: SetExit): vo
       const radios = scenario.spacecraft.reduce((n, s) => n + s.radios.length, 0);
       io.out(
         `ok: ${files.spacecraftFile}: ${scenario.spacecraft.length} spacecraft, ${sets} element sets, ${radios} radios\n` +
-          `ok: ${files.networkFile}: ${scenario.stations.length} stations\n`,
+          `ok: ${files.networkFile}: ${scenario.stations.length} stations\n\n` +
+          climate,
       );
       setExit(0);
     });

@@ -7,6 +7,7 @@ import { registerTrace } from './trace.js';
 import { registerMargin } from './margin.js';
 import { registerBudget } from './budget.js';
 import { registerSize } from './size.js';
+import { registerClimate } from './climate.js';
 
 export type SetExit = (code: number) => void;
 
@@ -17,4 +18,5 @@ export function registerCommands(program: Command, io: CliIo, setExit: SetExit):
   registerMargin(program, io, setExit);
   registerBudget(program, io, setExit);
   registerSize(program, io, setExit);
+  registerClimate(program, io, setExit);
 }

@@ -30,6 +30,7 @@ import { buildAtmosphereTable, rainModelled, type AtmosphereStationInput } from 
 import type { AtmosphereTable } from '../link/atmosphere/types.js';
 import { prepareLink, evaluateLink } from '../link/budget.js';
 import { polarizationTiltDeg } from '../link/polarization.js';
+import { stationClimate } from '../link/climate/station.js';
 import { wavelengthM } from '../link/units.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import { modcodStaircase, stepAt, type ModcodStaircase } from '../link/modcod/acm.js';
@@ -68,12 +69,18 @@ function effectiveDiameterM(station: Station, freqHz: number): { diameterM: numb
   return { diameterM: (lambda / Math.PI) * Math.sqrt(10 ** (gainDbi / 10) / efficiency), efficiency };
 }
 
+/** The link's exceedance, % of an average year (100 - availability). */
+export function linkExceedancePercent(settings: LinkSettings): number {
+  return Number((100 - settings.availabilityPercent).toPrecision(12));
+}
+
 export function atmosphereInputFor(station: Station, radio: Radio, settings: LinkSettings): AtmosphereStationInput {
-  const c = station.climate;
+  const exceedancePercent = linkExceedancePercent(settings);
+  const c = stationClimate(station, exceedancePercent).values;
   const { diameterM, efficiency } = effectiveDiameterM(station, radio.frequencyHz);
   return {
     frequencyHz: radio.frequencyHz,
-    exceedancePercent: Number((100 - settings.availabilityPercent).toPrecision(12)),
+    exceedancePercent,
     latitudeDeg: station.latitudeDeg,
     stationHeightKm: station.heightKm,
     polarizationTiltDeg: polarizationTiltDeg(radio.polarization),

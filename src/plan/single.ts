@@ -17,7 +17,8 @@ import type { AtmosphereResult, AtmosphereTable } from '../link/atmosphere/types
 import type { BudgetTerm, PreparedLink } from '../link/types.js';
 import { skyNoiseTemperatureK } from '../link/atmosphere/sky-noise.js';
 import type { Radio, Scenario, Spacecraft } from '../scenario/types.js';
-import { lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
+import { linkExceedancePercent, lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
+import { stationClimate, type StationClimate } from '../link/climate/station.js';
 
 export const MOON_MEAN_DISTANCE_KM = 384_400;
 
@@ -36,6 +37,8 @@ export interface SingleBudget {
   look: Look;
   orbitRadiusKm: number;
   terms: BudgetTerm[];
+  /** The station's climate inputs and where each came from (file or ITU-R map). */
+  climate: StationClimate;
 }
 
 /** Typical geocentric distance of the spacecraft, km. */
@@ -151,5 +154,7 @@ export function singleBudget(scenario: Scenario, req: SingleBudgetRequest): Sing
   const { sc, radio, look, orbitRadiusKm } = point;
   const link = withOverrides(point.link, req);
   const terms = overriddenTerms(budgetTerms(link, look), req);
-  return { spacecraftId: sc.id, stationId: req.stationId, radioId: radio.id, look, orbitRadiusKm, terms };
+  const station = scenario.stations.find((s) => s.id === req.stationId)!; // preparePoint checked it
+  const climate = stationClimate(station, linkExceedancePercent(scenario.link));
+  return { spacecraftId: sc.id, stationId: req.stationId, radioId: radio.id, look, orbitRadiusKm, terms, climate };
 }

@@ -1,6 +1,7 @@
 /** Renders one link budget term by term, like a handbook budget. */
 import type { SingleBudget } from '../plan/single.js';
 import { renderTable } from './table.js';
+import { climateHeading, renderClimateInputs } from './climate.js';
 
 function decimalsFor(unit: string): number {
   if (unit === 'bit/s' || unit === 'baud' || unit === 'Hz') return 0;
@@ -11,7 +12,9 @@ function decimalsFor(unit: string): number {
 export function renderBudgetTable(b: SingleBudget): string {
   const rows = b.terms.map((t) => [t.name, t.value.toFixed(decimalsFor(t.unit)), t.unit, t.source]);
   const head = `Link budget: ${b.spacecraftId} radio ${b.radioId} -> ${b.stationId} at ${b.look.elevationDeg.toFixed(2)} deg elevation, ${b.look.rangeKm.toFixed(1)} km`;
-  return `${head}\n\n${renderTable([{ header: 'term' }, { header: 'value', align: 'right' }, { header: 'unit' }, { header: 'source' }], rows)}\n`;
+  const c = b.climate;
+  const climate = `${climateHeading(c.exceedancePercent, c.gasCloudExceedancePercent)}, station ${b.stationId}\n${renderClimateInputs(c.inputs)}`;
+  return `${head}\n\n${renderTable([{ header: 'term' }, { header: 'value', align: 'right' }, { header: 'unit' }, { header: 'source' }], rows)}\n\n${climate}\n`;
 }
 
 export function renderBudgetJson(b: SingleBudget): string {
@@ -22,6 +25,7 @@ export function renderBudgetJson(b: SingleBudget): string {
     elevation_deg: Number(b.look.elevationDeg.toFixed(6)),
     range_km: Number(b.look.rangeKm.toFixed(6)),
     terms: b.terms.map((t) => ({ name: t.name, value: Number(t.value.toPrecision(10)), unit: t.unit, source: t.source })),
+    climate: b.climate.inputs.map((i) => ({ field: i.fileField, name: i.label, value: Number(i.value.toPrecision(10)), unit: i.unit, source: i.source })),
   };
   return JSON.stringify(doc, null, 2) + '\n';
 }

@@ -7,8 +7,8 @@
  * transmit loss 0 dB, polarisation RHCP, implementation loss 1 dB, required
  * margin 3 dB; station mask 5 deg, pointing error 0 deg, one antenna, no set-up
  * time; feed loss 0 dB at 290 K, antenna noise 10 K; stated G/T referred to
- * 90 deg elevation; surface atmosphere of the ITU-R P.676-13 reference
- * (1013.25 hPa, 288.15 K, 7.5 g/m3); Nwet 50 N-units; availability 99.5 %.
+ * 90 deg elevation; climate values left out are read from the ITU-R maps for
+ * the site later (src/link/climate/station.ts); availability 99.5 %.
  */
 import { DateTime } from 'luxon';
 import { ScenarioError, appendAll, type Problem } from '../errors.js';
@@ -374,10 +374,10 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
     climate: {
       ...(c.rainRate001MmH !== undefined ? { rainRate001MmH: c.rainRate001MmH } : {}),
       ...(c.rainHeightKm !== undefined ? { rainHeightKm: c.rainHeightKm } : {}),
-      surfaceWaterVapourDensityGM3: c.waterVapourDensityGM3 ?? 7.5,
-      surfaceTemperatureK: c.temperatureK ?? 288.15,
-      surfacePressureHpa: c.pressureHpa ?? 1013.25,
-      nWetMedian: c.nWetMedian ?? 50,
+      ...(c.waterVapourDensityGM3 !== undefined ? { surfaceWaterVapourDensityGM3: c.waterVapourDensityGM3 } : {}),
+      ...(c.temperatureK !== undefined ? { surfaceTemperatureK: c.temperatureK } : {}),
+      ...(c.pressureHpa !== undefined ? { surfacePressureHpa: c.pressureHpa } : {}),
+      ...(c.nWetMedian !== undefined ? { nWetMedian: c.nWetMedian } : {}),
       ...(c.cloudLiquidWaterKgM2 !== undefined ? { cloudLiquidWaterKgM2: c.cloudLiquidWaterKgM2 } : {}),
     },
     antennaCount: a.count ?? 1,

@@ -262,11 +262,6 @@ export const stationSchema = z
         cloudLiquidWaterKgM2: range(0, 10).optional(),
       })
       .strict()
-      .superRefine((c, ctx) => {
-        if ((c.rainRate001MmH === undefined) !== (c.rainHeightKm === undefined)) {
-          ctx.addIssue({ code: 'custom', message: 'rainRate001MmH and rainHeightKm go together (ITU-R P.837 and P.839 values for the site); give both or neither' });
-        }
-      })
       .optional(),
     /** Bands the station can hear (default: one feed, the station's antenna and receiver, any frequency). */
     feeds: z.array(feedSchema).min(1, { message: 'must list at least one feed (or leave feeds out)' }).optional(),

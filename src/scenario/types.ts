@@ -151,16 +151,20 @@ export type Receiver =
       apertureEfficiency?: number;
     };
 
+/**
+ * The climate values the network file gives for a station; each one left out is read from
+ * the ITU-R maps for the station's site (src/link/climate/station.ts).
+ */
 export interface Climate {
   /** Rain rate exceeded 0.01 % of an average year, mm/h (ITU-R P.837). */
   rainRate001MmH?: number;
   /** Rain height, km (ITU-R P.839: 0 °C isotherm + 0.36 km). */
   rainHeightKm?: number;
-  surfaceWaterVapourDensityGM3: number;
-  surfaceTemperatureK: number;
-  surfacePressureHpa: number;
+  surfaceWaterVapourDensityGM3?: number;
+  surfaceTemperatureK?: number;
+  surfacePressureHpa?: number;
   /** Wet term of surface refractivity, median, N-units (ITU-R P.453). */
-  nWetMedian: number;
+  nWetMedian?: number;
   /** Integrated cloud liquid water exceeded at the availability, kg/m² (ITU-R P.840), optional. */
   cloudLiquidWaterKgM2?: number;
 }

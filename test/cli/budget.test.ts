@@ -59,7 +59,8 @@ function networkFile(name: string, station: Record<string, unknown>): string {
   writeFileSync(
     p,
     JSON.stringify({
-      stations: [{ id: 'RX', latitudeDeg: 0, longitudeDeg: 0, heightM: 0, maskDeg: 5, timeZone: 'UTC', ...station }],
+      // The books' examples are clear-sky budgets: no rain, no cloud (the rest of the climate from the ITU-R maps).
+      stations: [{ id: 'RX', latitudeDeg: 0, longitudeDeg: 0, heightM: 0, maskDeg: 5, timeZone: 'UTC', climate: { rainRate001MmH: 0, cloudLiquidWaterKgM2: 0 }, ...station }],
     }),
   );
   return p;

@@ -4,8 +4,8 @@
  * §2.5 also says AC(p) and AG(p) are to be taken at p = 5 % when p < 5 % (clouds and gas
  * are correlated with rain). We take the gas attenuation from the instantaneous surface
  * conditions and the cloud attenuation from a single integrated-liquid-water value given
- * by the caller: whatever exceedance those inputs represent is what is combined; choosing
- * 5 % values for them is the caller's (scenario's) job.
+ * by the caller: whatever exceedance those inputs represent is what is combined. A station's
+ * climate read from the ITU-R maps takes them at max(p, 5 %) (src/link/climate/station.ts).
  * Units: dB in, dB out.
  */
 
