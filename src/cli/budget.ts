@@ -7,12 +7,9 @@ import { singleBudget, type SingleBudgetRequest } from '../plan/single.js';
 import { renderBudgetTable, renderBudgetJson } from '../report/budget.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
-import { decimalFlag } from './options.js';
+import { numberFlag, readGeometryOverrides } from './options.js';
 
-function num(flag: string, text: string | undefined, min: number, max: number): number | undefined {
-  // decimal only: "0x10" or " " is not a number here
-  return decimalFlag(flag, text, min, max, `a number in ${min}..${max}`);
-}
+
 
 interface Raw {
   spacecraft?: string;
@@ -50,17 +47,8 @@ export function registerBudget(program: Command, io: CliIo, setExit: SetExit): v
       const scenario = loadScenario({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile });
       const req: SingleBudgetRequest = { spacecraftId: raw.spacecraftId, stationId: raw.stationId };
       if (raw.radioId !== undefined) req.radioId = raw.radioId;
-      const el = num('--elevation', raw.elevation, 0, 90);
-      const range = num('--range-km', raw.rangeKm, 1, 1e10);
-      const atm = num('--atmosphere-db', raw.atmosphereDb, 0, 100);
-      const point = num('--pointing-loss-db', raw.pointingLossDb, 0, 50);
-      const extra = num('--extra-loss-db', raw.extraLossDb, 0, 100);
-      if (el !== undefined) req.elevationDeg = el;
-      if (range !== undefined) req.rangeKm = range;
-      if (atm !== undefined) req.atmosphereDb = atm;
-      if (point !== undefined) req.pointingLossDb = point;
-      if (extra !== undefined) req.extraLossDb = extra;
-      const gt = num('--g-over-t-db-k', raw.gOverTDbK, -40, 70);
+      Object.assign(req, readGeometryOverrides(raw));
+      const gt = numberFlag('--g-over-t-db-k', raw.gOverTDbK, -40, 70);
       if (gt !== undefined) req.gOverTDbK = gt;
       const b = singleBudget(scenario, req);
       io.out(raw.format === 'json' ? renderBudgetJson(b) : renderBudgetTable(b));

@@ -114,3 +114,38 @@ export function spanFor(opts: CommonOptions, scenario: Scenario, io: CliIo): Spa
   }
   return { startMs, endMs: startMs + days * 86_400_000 };
 }
+
+/** A decimal number flag in min..max (decimal only: "0x10" or " " is not a number here). */
+export function numberFlag(flag: string, text: string | undefined, min: number, max: number): number | undefined {
+  return decimalFlag(flag, text, min, max, `a number in ${min}..${max}`);
+}
+
+/** The one-geometry flags `budget` and `size` share: where the link is evaluated and the handbook overrides. */
+export interface GeometryOverrideFlags {
+  elevation?: string;
+  rangeKm?: string;
+  atmosphereDb?: string;
+  pointingLossDb?: string;
+  extraLossDb?: string;
+}
+
+export function readGeometryOverrides(raw: GeometryOverrideFlags): {
+  elevationDeg?: number;
+  rangeKm?: number;
+  atmosphereDb?: number;
+  pointingLossDb?: number;
+  extraLossDb?: number;
+} {
+  const out: ReturnType<typeof readGeometryOverrides> = {};
+  const el = numberFlag('--elevation', raw.elevation, 0, 90);
+  const range = numberFlag('--range-km', raw.rangeKm, 1, 1e10);
+  const atm = numberFlag('--atmosphere-db', raw.atmosphereDb, 0, 100);
+  const point = numberFlag('--pointing-loss-db', raw.pointingLossDb, 0, 50);
+  const extra = numberFlag('--extra-loss-db', raw.extraLossDb, 0, 100);
+  if (el !== undefined) out.elevationDeg = el;
+  if (range !== undefined) out.rangeKm = range;
+  if (atm !== undefined) out.atmosphereDb = atm;
+  if (point !== undefined) out.pointingLossDb = point;
+  if (extra !== undefined) out.extraLossDb = extra;
+  return out;
+}

@@ -14,14 +14,11 @@ import { assertPreflight } from '../plan/preflight.js';
 import { DEFAULT_SIZING_LINK_STEP_S, prepareSizingContext, sizeForWeek, sizePowerAtGeometry, type SolveFor, type VolumeBasis } from '../plan/sizing.js';
 import { pointSizingJson, renderPointSizingText, renderWeekSizingText, weekSizingJson } from '../report/sizing.js';
 import { writeOutputs } from '../report/write.js';
-import { addCommonOptions, decimalFlag, prepareOutput, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, numberFlag, prepareOutput, readGeometryOverrides, readCommonOptions, spanFor } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
-function num(flag: string, text: string | undefined, min: number, max: number): number | undefined {
-  // decimal only: "0x10" or " " is not a number here
-  return decimalFlag(flag, text, min, max, `a number in ${min}..${max}`);
-}
+
 
 interface SizeRaw {
   spacecraftId: string;
@@ -67,26 +64,17 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
       if (opts.format === 'csv') throw new UsageError('--format: size prints table or json');
       prepareOutput(opts, io, ['sizing.json']);
       const scenario = loadScenario(opts.files);
-      const availability = num('--availability', raw.availability, 90, 99.999);
+      const availability = numberFlag('--availability', raw.availability, 90, 99.999);
       if (availability !== undefined) scenario.link = { ...scenario.link, availabilityPercent: availability };
-      const rate = num('--target-rate-bps', raw.targetRateBps, 1e-3, 1e12);
-      const target = num('--target-gbit-per-day', raw.targetGbitPerDay, 1e-9, 1e9);
+      const rate = numberFlag('--target-rate-bps', raw.targetRateBps, 1e-3, 1e12);
+      const target = numberFlag('--target-gbit-per-day', raw.targetGbitPerDay, 1e-9, 1e9);
       let text: string;
       let json: string;
       let reached: boolean;
       if (rate !== undefined) {
         if (raw.stationId === undefined) throw new UsageError('size: one-geometry mode (--target-rate-bps) needs --station-id');
         const req: Parameters<typeof sizePowerAtGeometry>[1] = { spacecraftId: raw.spacecraftId, stationId: raw.stationId, targetRateBps: rate };
-        const el = num('--elevation', raw.elevation, 0, 90);
-        const range = num('--range-km', raw.rangeKm, 1, 1e10);
-        if (el !== undefined) req.elevationDeg = el;
-        if (range !== undefined) req.rangeKm = range;
-        const atm = num('--atmosphere-db', raw.atmosphereDb, 0, 100);
-        const point = num('--pointing-loss-db', raw.pointingLossDb, 0, 50);
-        const extra = num('--extra-loss-db', raw.extraLossDb, 0, 100);
-        if (atm !== undefined) req.atmosphereDb = atm;
-        if (point !== undefined) req.pointingLossDb = point;
-        if (extra !== undefined) req.extraLossDb = extra;
+        Object.assign(req, readGeometryOverrides(raw));
         if (raw.solve !== 'power') throw new UsageError('--solve: one-geometry mode sizes the transmit power only');
         const res = sizePowerAtGeometry(scenario, req);
         text = renderPointSizingText(res);

@@ -155,6 +155,20 @@ export const spacecraftFileSchema = z
 // ---- station feeds (self-contained block): what bands a station can hear, each with its
 // own gain or dish and its own receive chain or G/T; missing parts come from the station.
 /** IEEE Std 521-2019 radar-band letters (common practice), MHz. */
+/** A receive chain: a noise temperature, a noise figure or a stated G/T (exactly one), with the feed's losses. */
+const receiverSchema = z
+  .object({
+    noiseTempK: positive().optional(),
+    noiseFigureDb: range(0, 20).optional(),
+    feedLossDb: range(0, 10).optional(),
+    feedTempK: range(0, 400).optional(),
+    antennaNoiseK: range(0, 1000).optional(),
+    gOverTDbK: range(-40, 70).optional(),
+    gOverTAtElevationDeg: range(0, 90).optional(),
+  })
+  .strict()
+  .superRefine(exactlyOne(['noiseTempK', 'noiseFigureDb', 'gOverTDbK']));
+
 export const BAND_RANGES_MHZ: Record<string, [number, number]> = {
   L: [1000, 2000],
   S: [2000, 4000],
@@ -176,19 +190,7 @@ export const feedSchema = z
     apertureEfficiency: finite()
       .refine((v) => v > 0 && v <= 1, { message: 'must be in (0, 1]' })
       .optional(),
-    receiver: z
-      .object({
-        noiseTempK: positive().optional(),
-        noiseFigureDb: range(0, 20).optional(),
-        feedLossDb: range(0, 10).optional(),
-        feedTempK: range(0, 400).optional(),
-        antennaNoiseK: range(0, 1000).optional(),
-        gOverTDbK: range(-40, 70).optional(),
-        gOverTAtElevationDeg: range(0, 90).optional(),
-      })
-      .strict()
-      .superRefine(exactlyOne(['noiseTempK', 'noiseFigureDb', 'gOverTDbK']))
-      .optional(),
+    receiver: receiverSchema.optional(),
   })
   .strict()
   .superRefine((f, ctx) => {
@@ -239,18 +241,7 @@ export const stationSchema = z
           ctx.addIssue({ code: 'custom', message: 'needs dishDiameterM (with apertureEfficiency) or gainDbi' });
         }
       }),
-    receiver: z
-      .object({
-        noiseTempK: positive().optional(),
-        noiseFigureDb: range(0, 20).optional(),
-        feedLossDb: range(0, 10).optional(),
-        feedTempK: range(0, 400).optional(),
-        antennaNoiseK: range(0, 1000).optional(),
-        gOverTDbK: range(-40, 70).optional(),
-        gOverTAtElevationDeg: range(0, 90).optional(),
-      })
-      .strict()
-      .superRefine(exactlyOne(['noiseTempK', 'noiseFigureDb', 'gOverTDbK'])),
+    receiver: receiverSchema,
     climate: z
       .object({
         rainRate001MmH: range(0, 300).optional(),
