@@ -9,6 +9,11 @@ import { findPasses } from '../geometry/passes.js';
 import { makeSgp4Target, elementAgeWarning } from '../geometry/targets/sgp4.js';
 import { makeMoonTarget } from '../geometry/targets/moon.js';
 import { makeFixedSkyTarget } from '../geometry/targets/fixedSky.js';
+import { makeEphemerisTarget } from '../geometry/targets/ephemeris.js';
+import { makeLunarSiteTarget } from '../geometry/targets/lunar.js';
+import { makeLunarOrbitTarget } from '../geometry/targets/lunar-orbit.js';
+import { lightTimeS } from '../geometry/light-time.js';
+import { lookFrom, newLook } from '../geometry/topocentric.js';
 import { DEFAULT_SEARCH, type SearchOptions, type Site, type Target } from '../geometry/types.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import { isoUtc } from '../time/format.js';
@@ -23,6 +28,12 @@ export function makeTarget(sc: Spacecraft, span: Span): Target {
       return makeMoonTarget(sc.id, span);
     case 'fixedSky':
       return makeFixedSkyTarget(sc.id, o.rightAscensionDeg, o.declinationDeg, o.rangeKm, span);
+    case 'ephemeris':
+      return makeEphemerisTarget(sc.id, o.ephemeris, span, o.grazingMarginKm);
+    case 'lunarSite':
+      return makeLunarSiteTarget(sc.id, o.site, span);
+    case 'lunarOrbit':
+      return makeLunarOrbitTarget(sc.id, o.elements, span);
   }
 }
 
@@ -61,8 +72,17 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
       if (age) warnings.push(`${sc.id}: ${age}`);
     }
     const before = target.evaluations;
-    for (const p of findPasses(target, geometry.sites, geometry.masks, span, search)) {
-      contacts.push({ ...p, durationS: (p.losMs - p.aosMs) / 1000 });
+    let searchSpan = span;
+    const cov = target.coverage;
+    if (cov !== undefined && (cov.startMs > span.startMs || cov.endMs < span.endMs)) {
+      searchSpan = { startMs: Math.max(span.startMs, cov.startMs), endMs: Math.min(span.endMs, cov.endMs) };
+      warnings.push(`${sc.id}: its ephemeris covers ${isoUtc(cov.startMs, 0)} .. ${isoUtc(cov.endMs, 0)} only (usable span less the light time); no contacts outside it`);
+    }
+    if (searchSpan.endMs > searchSpan.startMs) {
+      const siteOf = new Map(geometry.sites.map((s) => [s.stationId, s]));
+      for (const p of findPasses(target, geometry.sites, geometry.masks, searchSpan, search)) {
+        contacts.push({ ...p, durationS: (p.losMs - p.aosMs) / 1000, ...transmitTimes(target, siteOf.get(p.stationId)!, p) });
+      }
     }
     propagations += target.evaluations - before;
     if (target.failedAtMs !== undefined) {
@@ -76,4 +96,22 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
   keyed.sort((a, b) => a.st - b.st || a.c.aosMs - b.c.aosMs || a.sc - b.sc);
   for (let i = 0; i < keyed.length; i++) contacts[i] = keyed[i]!.c;
   return { contacts, warnings, propagations };
+}
+
+const ltState = new Float64Array(6);
+const ltLook = newLook();
+
+/**
+ * Spacecraft transmit times of AOS and LOS and the one-way light time at TCA
+ * (geometry/light-time.ts): each is the received time less the light time of the
+ * station-to-craft range there (the range of a light-time corrected state).
+ */
+function transmitTimes(target: Target, site: Site, p: { aosMs: number; tcaMs: number; losMs: number }): Pick<Contact, 'aosTransmitMs' | 'losTransmitMs' | 'lightTimeS'> {
+  const tau = (tMs: number): number => {
+    if (!target.stateEcefAt(tMs, ltState)) return Number.NaN;
+    return lightTimeS(lookFrom(site, ltState, ltLook).rangeKm);
+  };
+  const aos = tau(p.aosMs);
+  const los = tau(p.losMs);
+  return { aosTransmitMs: p.aosMs - aos * 1000, losTransmitMs: p.losMs - los * 1000, lightTimeS: tau(p.tcaMs) };
 }

@@ -8,6 +8,7 @@
  * follows from the same triangle. Handbook overrides replace a modelled term
  * by a given value.
  */
+import { geocentricStates } from '../geometry/targets/ephemeris.js';
 import { ScenarioError, UsageError } from '../errors.js';
 import { makeSite } from '../geometry/earth.js';
 import { slantRangeKm, elevationForRangeDeg, semiMajorAxisKm } from '../geometry/slant.js';
@@ -44,8 +45,13 @@ export interface SingleBudget {
 /** Typical geocentric distance of the spacecraft, km. */
 export function typicalRadiusKm(sc: Spacecraft): number {
   const o = sc.orbit;
-  if (o.kind === 'moon') return MOON_MEAN_DISTANCE_KM;
+  if (o.kind === 'moon' || o.kind === 'lunarSite' || o.kind === 'lunarOrbit') return MOON_MEAN_DISTANCE_KM;
   if (o.kind === 'fixedSky') return o.rangeKm;
+  if (o.kind === 'ephemeris') {
+    const seg = o.ephemeris.segments[0]!;
+    const s = geocentricStates(seg);
+    return Math.hypot(s[0]!, s[1]!, s[2]!);
+  }
   const set = o.sets[0];
   const n = set?.omm?.meanMotionRevPerDay ?? (set?.tle ? Number(set.tle.line2.slice(52, 63)) : Number.NaN);
   return semiMajorAxisKm(n);
@@ -133,7 +139,7 @@ export function preparePoint(scenario: Scenario, req: PointRequest, command: str
     // The Moon's or a fixed sky direction's elevation does not follow from a range: a
     // made-up triangle would give an elevation (3 deg for the Moon) nobody asked for.
     throw new UsageError(
-      `${command}: ${sc.id} is ${sc.orbit.kind === 'moon' ? 'at the Moon' : 'at a fixed sky direction'}; its elevation does not follow from --range-km: give --elevation DEG too`,
+      `${command}: ${sc.id} is ${sc.orbit.kind === 'fixedSky' ? 'at a fixed sky direction' : sc.orbit.kind === 'ephemeris' ? 'on an ephemeris' : 'at the Moon'}; its elevation does not follow from --range-km: give --elevation DEG too`,
     );
   }
   const site = makeSite(station.id, station.latitudeDeg, station.longitudeDeg, station.heightKm);

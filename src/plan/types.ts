@@ -40,6 +40,11 @@ export const VOLUME_BIN_MS = 15 * 60 * 1000;
 
 export interface Contact extends Pass {
   durationS: number;
+  /** When the craft sent what the station receives at AOS and LOS (received time less the light time), epoch ms. */
+  aosTransmitMs?: number;
+  losTransmitMs?: number;
+  /** One-way light time at TCA, s. */
+  lightTimeS?: number;
   /** The data downlink's link (radios[0]); absent without a radio or a feed for it. */
   link?: ContactLink;
   /** The spacecraft's other radios, each with its own volume (radios[1..] heard by a feed). */
