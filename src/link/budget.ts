@@ -16,6 +16,8 @@
  *             rate = eta(entry) Rs, 0 when none closes                  modcod/acm.ts
  *   Shannon   = B log2(1 + (C/N0)/B), B = Rs (1 + rolloff)             modcod/shannon.ts
  *   Doppler   = -f v_r / c                                             doppler.ts
+ *   Sun, Moon = T_body (the caller's, body-noise.ts) x 10^(-A/10), added to Tsky at every
+ *               sample (the caller passes 0 where no body is near the beam)
  * Below LinkSettings.minDataElevationDeg the rate is 0 (the budget is still computed).
  * The atmosphere is looked up at max(elevation, table.minElevationDeg): below the table
  * the atmosphere of its lowest elevation is used (such samples carry no data anyway).
@@ -36,6 +38,7 @@ import {
   pointingLossDb,
 } from './antenna.js';
 import { dopplerShiftHz } from './doppler.js';
+import { MOON_BRIGHTNESS_K, quietSunBrightnessK } from './body-brightness.js';
 import { freeSpaceLossDb, fluxDensityDbwM2 } from './free-space.js';
 import { carrierToNoiseDensityDbHz } from './link-equation.js';
 import { bestModcod, lowestThresholdModcod } from './modcod/acm.js';
@@ -224,6 +227,8 @@ export function prepareLink(
     rxGainDbi,
     rxBeamwidthDeg,
     rxPolarization: station.polarization,
+    sunBrightnessK: quietSunBrightnessK(f),
+    moonBrightnessK: MOON_BRIGHTNESS_K,
     antennaNoiseTempK,
     feedLossDb,
     feedPhysicalTempK,
@@ -268,7 +273,7 @@ export function prepareLink(
  * nothing. With `full` false the reference columns (Shannon capacity, Doppler) are left
  * as they were: the volume integration needs neither.
  */
-export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full = true): void {
+export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full = true, bodyTempK = 0): void {
   const f = p.frequencyHz;
   out.freeSpaceLossDb = freeSpaceLossDb(look.rangeKm, f);
 
@@ -284,6 +289,9 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
   out.scintillationDb = a.scintillationDb;
   out.atmosphereDb = a.totalDb;
   out.skyNoiseTempK = a.skyNoiseTempK;
+  // the Sun and the Moon in the beam, seen through the same atmosphere
+  const bodyK = bodyTempK > 0 ? bodyTempK * 10 ** (-a.totalDb / 10) : 0;
+  out.bodyNoiseTempK = bodyK;
 
   // Transmit side.
   let offDeg = 0;
@@ -302,12 +310,12 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
   // Receive side.
   out.rxGainDbi = p.rxGainDbi;
   if (p.receiverKind === 'chain') {
-    const tsysK = p.skyNoiseWeight * a.skyNoiseTempK + p.fixedNoiseTempK;
+    const tsysK = p.skyNoiseWeight * (a.skyNoiseTempK + bodyK) + p.fixedNoiseTempK;
     out.systemNoiseTempK = tsysK;
     out.gOverTDbK = gOverTDbK(p.rxGainDbi, p.feedLossDb, tsysK);
   } else {
-    out.systemNoiseTempK = p.referenceSystemNoiseTempK + (a.skyNoiseTempK - p.referenceSkyNoiseTempK);
-    out.gOverTDbK = gOverTAtSkyDbK(p.statedGOverTDbK, p.referenceSystemNoiseTempK, p.referenceSkyNoiseTempK, a.skyNoiseTempK);
+    out.systemNoiseTempK = p.referenceSystemNoiseTempK + (a.skyNoiseTempK + bodyK - p.referenceSkyNoiseTempK);
+    out.gOverTDbK = gOverTAtSkyDbK(p.statedGOverTDbK, p.referenceSystemNoiseTempK, p.referenceSkyNoiseTempK, a.skyNoiseTempK + bodyK);
   }
   if (p.gOverTOverrideDbK === p.gOverTOverrideDbK) out.gOverTDbK = p.gOverTOverrideDbK; // given (not NaN)
   out.pointingLossDb = p.pointingLossDb;
