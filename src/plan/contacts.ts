@@ -14,6 +14,7 @@ import { makeLunarSiteTarget } from '../geometry/targets/lunar.js';
 import { makeLunarOrbitTarget } from '../geometry/targets/lunar-orbit.js';
 import { lightTimeS } from '../geometry/light-time.js';
 import { lookFrom, newLook } from '../geometry/topocentric.js';
+import { SkyBodies } from '../geometry/sky-bodies.js';
 import { DEFAULT_SEARCH, type SearchOptions, type Site, type Target } from '../geometry/types.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import { isoUtc } from '../time/format.js';
@@ -43,6 +44,8 @@ export interface Geometry {
   /** Targets by spacecraft id, in scenario order. */
   targets: Map<string, Target>;
   span: Span;
+  /** The Sun and the Moon over the span (noise in the beam, Sun outages, Sun-Earth-probe angle). */
+  sky: SkyBodies;
 }
 
 export function prepareGeometry(scenario: Scenario, span: Span): Geometry {
@@ -50,7 +53,7 @@ export function prepareGeometry(scenario: Scenario, span: Span): Geometry {
   const masks = scenario.stations.map((s) => prepareMask(s.mask));
   const targets = new Map<string, Target>();
   for (const sc of scenario.spacecraft) targets.set(sc.id, makeTarget(sc, span));
-  return { sites, masks, targets, span };
+  return { sites, masks, targets, span, sky: new SkyBodies(span) };
 }
 
 export interface ContactSearch {
@@ -85,6 +88,8 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
       }
     }
     propagations += target.evaluations - before;
+    const conjunction = solarConjunctionWarning(target, geometry.sky, span);
+    if (conjunction) warnings.push(`${sc.id}: ${conjunction}`);
     if (target.failedAtMs !== undefined) {
       warnings.push(`${sc.id}: track ends at ${isoUtc(target.failedAtMs, 0)}: ${target.failureReason ?? 'SGP4 error'}; no contacts after it`);
     }
@@ -114,4 +119,40 @@ function transmitTimes(target: Target, site: Site, p: { aosMs: number; tcaMs: nu
   const aos = tau(p.aosMs);
   const los = tau(p.losMs);
   return { aosTransmitMs: p.aosMs - aos * 1000, losTransmitMs: p.losMs - los * 1000, lightTimeS: tau(p.tcaMs) };
+}
+
+/** Beyond this geocentric distance a craft is in deep space, km (ITU Radio Regulations No. 1.177: 2 x 10^6 km). */
+export const DEEP_SPACE_KM = 2e6;
+/**
+ * Sun-Earth-probe angle under which a deep-space link is warned of, deg: inside about
+ * 5 deg the solar corona's scintillation and noise degrade X-band links (common
+ * practice; the corona's effect itself is not modelled).
+ */
+export const SOLAR_CONJUNCTION_WARNING_DEG = 5;
+const SEP_SAMPLE_MS = 3_600_000;
+
+/** The warning for a deep-space target whose Sun-Earth-probe angle falls below the threshold in the span, or undefined. */
+export function solarConjunctionWarning(target: Target, sky: SkyBodies, span: Span): string | undefined {
+  const s = new Float64Array(6);
+  let first = Number.NaN;
+  let last = Number.NaN;
+  let least = Infinity;
+  let leastAt = Number.NaN;
+  const from = target.coverage ? Math.max(span.startMs, target.coverage.startMs) : span.startMs;
+  const to = target.coverage ? Math.min(span.endMs, target.coverage.endMs) : span.endMs;
+  for (let t = from; t <= to; t += SEP_SAMPLE_MS) {
+    if (!target.stateEcefAt(t, s) || Math.hypot(s[0]!, s[1]!, s[2]!) < DEEP_SPACE_KM) continue;
+    sky.at(t);
+    const sep = sky.sunEarthProbeDeg(s);
+    if (sep < least) {
+      least = sep;
+      leastAt = t;
+    }
+    if (sep < SOLAR_CONJUNCTION_WARNING_DEG) {
+      if (Number.isNaN(first)) first = t;
+      last = t;
+    }
+  }
+  if (Number.isNaN(first)) return undefined;
+  return `Sun-Earth-probe angle below ${SOLAR_CONJUNCTION_WARNING_DEG} deg from ${isoUtc(first, 0)} to ${isoUtc(last, 0)} (least ${least.toFixed(2)} deg at ${isoUtc(leastAt, 0)}): solar conjunction, the corona's noise and scintillation (not modelled) degrade the link`;
 }

@@ -51,6 +51,21 @@ export interface Contact extends Pass {
   otherLinks?: ContactLink[];
 }
 
+/** A period of a contact with the Sun near the station's boresight (plan/sun-outages.ts). */
+export interface SunOutage {
+  stationId: string;
+  spacecraftId: string;
+  startMs: number;
+  endMs: number;
+  /** Closest approach of the Sun's centre to boresight, deg, and when. */
+  minOffsetDeg: number;
+  minAtMs: number;
+  /** The station's half-power beamwidth at the data radio's frequency, deg. */
+  beamwidthDeg: number;
+  /** Antenna temperature the quiet Sun adds at the closest approach (before the atmosphere), K. */
+  peakSunNoiseK: number;
+}
+
 export interface PlanResult {
   span: Span;
   /** Link sampling step inside contacts, s. */
@@ -62,4 +77,6 @@ export interface PlanResult {
   contacts: Contact[];
   warnings: string[];
   stats: { propagations: number; linkSamples: number };
+  /** Sun outages, ordered by station (file order) then start; absent for a geometry-only plan. */
+  sunOutages?: SunOutage[];
 }
