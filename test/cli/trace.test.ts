@@ -25,8 +25,9 @@ const EXPECTED_COLUMNS = [
   'in_contact', 'free_space_loss_db', 'gas_db', 'rain_db', 'cloud_db', 'scintillation_db', 'atmosphere_db',
   'pointing_loss_db', 'polarization_loss_db', 'eirp_dbw', 'g_over_t_db_k', 'c_n0_db_hz', 'eb_n0_db', 'es_n0_db',
   'margin_db', 'modcod', 'rate_bps', 'shannon_rate_bps', 'margin_in_use_db',
+  'body_noise_k', 'sun_offset_deg', 'sun_earth_probe_deg', 'lunar_site_earth_elevation_deg', 'lunar_site_earth_azimuth_deg',
 ];
-const UNIT_SUFFIX = /_(deg|km|km_s|hz|db|dbw|db_k|db_hz|bps)$/;
+const UNIT_SUFFIX = /_(deg|km|km_s|hz|db|dbw|db_k|db_hz|bps|k)$/;
 const START = '2026-03-05T00:00:00Z';
 const START_MS = Date.parse(START);
 
