@@ -98,12 +98,12 @@ export async function linkBenchmark(spacecraft = 200, stations = 20, days = 7, s
 export function demoBenchmark(): void {
   const scenario = loadScenario(demoFiles());
   const span = scenario.span!;
-  console.log('\ndemo week (bundled invented scenario, 6 spacecraft x 6 stations x 7 days)');
+  console.log(`\ndemo week (bundled invented scenario, ${scenario.spacecraft.length} spacecraft x ${scenario.stations.length} stations x 7 days)`);
   const geo = timed(() => runPlan(scenario, span, { geometryOnly: true }));
   const full = timed(() => runPlan(scenario, span));
   console.log(`  geometry only: ${(geo.ms / 1000).toFixed(2)} s, ${geo.value.contacts.length} windows, ${geo.value.stats.propagations} propagations`);
   console.log(
-    `  plan with link (default 10 s step): ${(full.ms / 1000).toFixed(2)} s, ${full.value.stats.linkSamples} link samples, ` +
+    `  plan with link (default step): ${(full.ms / 1000).toFixed(2)} s, ${full.value.stats.linkSamples} link samples, ` +
       `${full.value.stats.propagations} propagations in all`,
   );
 }

@@ -7,11 +7,13 @@
  * k = 1 that is where the disc noise of link/body-noise.ts is above ~6 % of its
  * peak for a beam narrower than the Sun (common practice for outage prediction
  * counts from about the same point).
- * Search (our own): f(t) = offset - limit sampled every SUN_OUTAGE_SCAN_S inside the
- * contact; an interval whose two samples are further from the limit than the largest
- * change the offset can make in it (the boresight's measured angular rate over the
- * neighbouring intervals, x 1.5, plus the Sun's own 0.0042 deg/s in Earth-fixed axes,
- * times half the interval) holds no outage; any other interval is searched for its
+ * Search (our own): a contact of up to 3 h whose Sun stays below the horizon, or above
+ * the contact's highest elevation, by more than the limit is passed over at once;
+ * otherwise f(t) = offset - limit is sampled every SUN_OUTAGE_SCAN_S inside the
+ * contact; an interval whose Sun is further from the great-circle arc between its two
+ * boresights than the limit plus a slack (15 % of the arc for the track's curvature,
+ * plus the Sun's own 0.0042 deg/s in Earth-fixed axes) holds no outage; any other
+ * interval is searched for its
  * minimum (golden section to SUN_OUTAGE_TOLERANCE_S) and, when it dips below zero, its
  * edges are bisected to the same tolerance.
  * Units: ms, s, degrees.
@@ -23,6 +25,8 @@ import type { Site, Target } from './types.js';
 export const SUN_OUTAGE_BEAMWIDTHS = 1;
 export const SUN_OUTAGE_SCAN_S = 30;
 export const SUN_OUTAGE_TOLERANCE_S = 0.5;
+/** Contacts up to this long are first checked against the Sun's elevation (see clearOf), s. */
+export const SUN_OUTAGE_PREFILTER_MAX_S = 3 * 3600;
 /** The Sun's apparent motion in Earth-fixed axes, deg/s (Earth rotation, 360 deg per day). */
 const SUN_RATE_DEG_S = 360 / 86_400;
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
@@ -61,28 +65,52 @@ export class SunOutageSearch {
     return a.sunOffsetDeg - (a.sunRadiusDeg + SUN_OUTAGE_BEAMWIDTHS * hpbwDeg);
   }
 
-  /** Outages inside [aosMs, losMs] at site for a beam of hpbwDeg. */
-  find(site: Site, aosMs: number, losMs: number, hpbwDeg: number): SunOutageWindow[] {
+  /** The Sun's elevation at site at tMs, deg. */
+  private sunElevationDeg(site: Site, tMs: number): number {
+    this.sky.at(tMs);
+    const p = this.sky.sunEcefKm;
+    const s = site.ecefKm;
+    const u = site.up;
+    const dx = p[0]! - s[0];
+    const dy = p[1]! - s[1];
+    const dz = p[2]! - s[2];
+    return (Math.asin((u[0] * dx + u[1] * dy + u[2] * dz) / Math.hypot(dx, dy, dz)) * 180) / Math.PI;
+  }
+
+  /**
+   * True when no outage is possible in a short contact: the boresight stays between the
+   * horizon and the contact's maximum elevation, so a Sun lower (or higher) than that band
+   * by more than the limit, all through the contact, cannot come near it.
+   */
+  private clearOf(site: Site, aosMs: number, losMs: number, hpbwDeg: number, maxElevationDeg: number): boolean {
+    if (losMs - aosMs > SUN_OUTAGE_PREFILTER_MAX_S * 1000) return false;
+    const limitDeg = 0.3 + SUN_OUTAGE_BEAMWIDTHS * hpbwDeg + (SUN_RATE_DEG_S * (losMs - aosMs)) / 2000;
+    const el = [aosMs, 0.5 * (aosMs + losMs), losMs].map((t) => this.sunElevationDeg(site, t));
+    const lo = Math.min(...el);
+    const hi = Math.max(...el);
+    return hi < -limitDeg || lo > maxElevationDeg + limitDeg;
+  }
+
+  /** Outages inside [aosMs, losMs] at site for a beam of hpbwDeg (maxElevationDeg: the contact's, for a quick rejection). */
+  find(site: Site, aosMs: number, losMs: number, hpbwDeg: number, maxElevationDeg = 90): SunOutageWindow[] {
     const out: SunOutageWindow[] = [];
     if (!(hpbwDeg > 0) || !(losMs > aosMs)) return out;
+    if (this.clearOf(site, aosMs, losMs, hpbwDeg, maxElevationDeg)) return out;
     const stepMs = SUN_OUTAGE_SCAN_S * 1000;
     const n = Math.max(1, Math.ceil((losMs - aosMs) / stepMs));
     const times: number[] = [];
     const fs: number[] = [];
-    const rates: number[] = [];
-    let px = 0;
-    let py = 0;
-    let pz = 0;
+    /** Boresight and Sun unit vectors (from the site, ECEF) at each sample. */
+    const dirs: number[] = [];
+    const suns: number[] = [];
+    const s = site.ecefKm;
     for (let k = 0; k <= n; k++) {
       const t = k === n ? losMs : aosMs + k * stepMs;
       const v = this.f(site, t, hpbwDeg);
-      if (k > 0) {
-        const dot = px * this.dir[0]! + py * this.dir[1]! + pz * this.dir[2]!;
-        rates.push((Math.acos(Math.max(-1, Math.min(1, dot))) * 180) / Math.PI / ((t - times[k - 1]!) / 1000));
-      }
-      px = this.dir[0]!;
-      py = this.dir[1]!;
-      pz = this.dir[2]!;
+      const p = this.sky.sunEcefKm;
+      const sn = Math.hypot(p[0]! - s[0], p[1]! - s[1], p[2]! - s[2]);
+      dirs.push(this.dir[0]!, this.dir[1]!, this.dir[2]!);
+      suns.push((p[0]! - s[0]) / sn, (p[1]! - s[1]) / sn, (p[2]! - s[2]) / sn);
       times.push(t);
       fs.push(v);
     }
@@ -105,11 +133,14 @@ export class SunOutageSearch {
       const fa = fs[k]!;
       const fb = fs[k + 1]!;
       if (Number.isNaN(fa) || Number.isNaN(fb)) continue;
-      const rate = 1.5 * Math.max(rates[k]!, rates[k - 1] ?? 0, rates[k + 1] ?? 0) + SUN_RATE_DEG_S;
-      const slack = (rate * (b - a)) / 2000;
+      // the Sun's least distance from the great-circle arc between the two boresights,
+      // allowing for the track's curvature (ARC_SLACK of the arc) and the Sun's motion
+      const arc = arcDistanceDeg(dirs, 3 * k, 3 * (k + 1), suns, 3 * k);
+      const slack = ARC_SLACK * arc.arcDeg + (SUN_RATE_DEG_S * (b - a)) / 1000 + 0.01;
+      const limitDeg = arc.toADeg - fa; // f = offset - limit, and offset(a) = the angle S..A
       let dipF = Infinity;
       let dipX = Number.NaN;
-      if (Math.min(fa, fb) - slack <= 0) {
+      if (arc.minDeg - limitDeg - slack <= 0) {
         const m = this.minimum(site, a, b, hpbwDeg);
         dipF = m.f;
         dipX = m.x;
@@ -186,3 +217,42 @@ export class SunOutageSearch {
     return loInside ? lo : hi;
   }
 }
+
+/** Share of an arc the boresight's track may bow away from the great circle between its ends (generous: a pass is nearly one). */
+const ARC_SLACK = 0.15;
+
+/**
+ * Least angle from the direction S to the great-circle arc A..B (unit vectors at offsets
+ * in flat arrays), the arc's length and the angle S..A, deg. Allocation-free.
+ */
+function arcDistanceDeg(d: number[], ia: number, ib: number, sv: number[], is: number): { minDeg: number; arcDeg: number; toADeg: number } {
+  const ax = d[ia]!, ay = d[ia + 1]!, az = d[ia + 2]!;
+  const bx = d[ib]!, by = d[ib + 1]!, bz = d[ib + 2]!;
+  const sx = sv[is]!, sy = sv[is + 1]!, sz = sv[is + 2]!;
+  const ang = (ux: number, uy: number, uz: number, wx: number, wy: number, wz: number) =>
+    (Math.atan2(Math.hypot(uy * wz - uz * wy, uz * wx - ux * wz, ux * wy - uy * wx), ux * wx + uy * wy + uz * wz) * 180) / Math.PI;
+  const toA = ang(sx, sy, sz, ax, ay, az);
+  const toB = ang(sx, sy, sz, bx, by, bz);
+  const arcDeg = ang(ax, ay, az, bx, by, bz);
+  out.minDeg = Math.min(toA, toB);
+  out.arcDeg = arcDeg;
+  out.toADeg = toA;
+  let nx = ay * bz - az * by;
+  let ny = az * bx - ax * bz;
+  let nz = ax * by - ay * bx;
+  const nn = Math.hypot(nx, ny, nz);
+  if (nn < 1e-12) return out;
+  nx /= nn;
+  ny /= nn;
+  nz /= nn;
+  const sinD = sx * nx + sy * ny + sz * nz;
+  const px = sx - sinD * nx;
+  const py = sy - sinD * ny;
+  const pz = sz - sinD * nz;
+  // P between A and B along the arc: A x P and P x B both along n
+  const c1 = (ay * pz - az * py) * nx + (az * px - ax * pz) * ny + (ax * py - ay * px) * nz;
+  const c2 = (py * bz - pz * by) * nx + (pz * bx - px * bz) * ny + (px * by - py * bx) * nz;
+  if (c1 >= 0 && c2 >= 0) out.minDeg = (Math.asin(Math.min(1, Math.abs(sinD))) * 180) / Math.PI;
+  return out;
+}
+const out = { minDeg: 0, arcDeg: 0, toADeg: 0 };

@@ -25,7 +25,7 @@ export function findSunOutages(contacts: readonly Contact[], geometry: Geometry,
       search = new SunOutageSearch(target, geometry.sky);
       searches.set(c.spacecraftId, search);
     }
-    for (const w of search.find(site, c.aosMs, c.losMs, link.rxBeamwidthDeg)) {
+    for (const w of search.find(site, c.aosMs, c.losMs, link.rxBeamwidthDeg, c.maxElevationDeg)) {
       geometry.sky.at(w.minAtMs);
       const sunRadiusDeg = Math.asin(696_000 / Math.hypot(geometry.sky.sunEcefKm[0]! - site.ecefKm[0], geometry.sky.sunEcefKm[1]! - site.ecefKm[1], geometry.sky.sunEcefKm[2]! - site.ecefKm[2])) * (180 / Math.PI);
       out.push({
