@@ -108,3 +108,52 @@ describe('Sun-Earth-probe angle and the solar conjunction warning', () => {
     }
   });
 });
+
+describe('the outage search against a 0.25 s scan (a LEO: fast boresight)', () => {
+  it('finds every outage of KESTREL-1 over the demo week, edges within 1 s', async () => {
+    const { prepareGeometry, findContacts } = await import('../../src/plan/contacts.js');
+    const { SunOutageSearch, SUN_OUTAGE_BEAMWIDTHS } = await import('../../src/geometry/sun-outage.js');
+    const { newBodyAngles } = await import('../../src/geometry/sky-bodies.js');
+    const { halfPowerBeamwidthDeg } = await import('../../src/link/antenna.js');
+    const scenario = { ...demo, spacecraft: demo.spacecraft.filter((s) => s.id === 'KESTREL-1') };
+    const week = demo.span!;
+    const geometry = prepareGeometry(scenario, week);
+    const contacts = findContacts(scenario, geometry, week).contacts;
+    const target = geometry.targets.get('KESTREL-1')!;
+    const search = new SunOutageSearch(target, geometry.sky);
+    const s = new Float64Array(6);
+    const angles = newBodyAngles();
+    let found = 0;
+    let scanned = 0;
+    for (const c of contacts) {
+      const i = geometry.sites.findIndex((x) => x.stationId === c.stationId);
+      const site = geometry.sites[i]!;
+      const st = scenario.stations[i]!;
+      const hpbw = halfPowerBeamwidthDeg((st.receiver as { dishDiameterM: number }).dishDiameterM, scenario.spacecraft[0]!.radios[0]!.frequencyHz);
+      const fast = search.find(site, c.aosMs, c.losMs, hpbw, c.maxElevationDeg);
+      const slow: { startMs: number; endMs: number }[] = [];
+      let open = Number.NaN;
+      for (let t = c.aosMs; t <= c.losMs; t += 250) {
+        target.stateEcefAt(t, s);
+        geometry.sky.at(t);
+        const a = geometry.sky.angles(site, s, angles);
+        const inside = a.sunOffsetDeg < a.sunRadiusDeg + SUN_OUTAGE_BEAMWIDTHS * hpbw;
+        if (inside && Number.isNaN(open)) open = t;
+        if (!inside && !Number.isNaN(open)) {
+          slow.push({ startMs: open, endMs: t - 250 });
+          open = Number.NaN;
+        }
+      }
+      if (!Number.isNaN(open)) slow.push({ startMs: open, endMs: c.losMs });
+      expect(fast.length).toBe(slow.length);
+      fast.forEach((w, k) => {
+        expect(Math.abs(w.startMs - slow[k]!.startMs)).toBeLessThan(1000);
+        expect(Math.abs(w.endMs - slow[k]!.endMs)).toBeLessThan(1000);
+      });
+      found += fast.length;
+      scanned++;
+    }
+    console.log(`KESTREL-1: ${scanned} contacts, ${found} outages`);
+    expect(found).toBeGreaterThanOrEqual(2);
+  });
+});
