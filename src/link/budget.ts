@@ -355,10 +355,13 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
   }
 }
 
-/** The budget at one look, term by term, for a handbook-style printout (allocates). */
-export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
+/**
+ * The budget at one look, term by term, for a handbook-style printout (allocates).
+ * bodyTempK: the Sun's and the Moon's antenna temperature in the beam (body-noise.ts), K.
+ */
+export function budgetTerms(p: PreparedLink, look: Look, bodyTempK = 0): BudgetTerm[] {
   const s = newLinkSample();
-  evaluateLink(p, look, s);
+  evaluateLink(p, look, s, true, bodyTempK);
   const t: BudgetTerm[] = [];
   const add = (name: string, value: number, unit: string, source: string): void => {
     t.push({ name, value, unit, source });
@@ -390,6 +393,7 @@ export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
   add('Power flux density at the station (free space)', fluxDensityDbwM2(s.eirpDbw, look.rangeKm), 'dBW/m2', 'EIRP / (4 pi d^2)');
   add('Receive antenna gain', s.rxGainDbi, 'dBi', p.receiverKind === 'chain' ? 'eta (pi D / lambda)^2 or stated' : p.referenceNoiseNote);
   add('Sky noise temperature', s.skyNoiseTempK, 'K', 'ITU-R P.618 sec. 3');
+  if (bodyTempK > 0) add('Moon in the beam (disc centred, through the atmosphere)', s.bodyNoiseTempK, 'K', `${p.moonBrightnessK} K disc in a Gaussian main lobe, body-noise.ts`);
   if (p.receiverKind === 'chain') {
     add('Feed loss', -p.feedLossDb, 'dB', 'station');
     add('System noise temperature (LNA input)', s.systemNoiseTempK, 'K', '(Tsky + Tant)/Lf + Tf (1 - 1/Lf) + Trx');

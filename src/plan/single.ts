@@ -14,6 +14,7 @@ import { makeSite } from '../geometry/earth.js';
 import { slantRangeKm, elevationForRangeDeg, semiMajorAxisKm } from '../geometry/slant.js';
 import type { Look } from '../geometry/types.js';
 import { budgetTerms } from '../link/budget.js';
+import { worstMoonTempK } from './margin.js';
 import type { AtmosphereResult, AtmosphereTable } from '../link/atmosphere/types.js';
 import type { BudgetTerm, PreparedLink } from '../link/types.js';
 import { skyNoiseTemperatureK } from '../link/atmosphere/sky-noise.js';
@@ -159,7 +160,9 @@ export function singleBudget(scenario: Scenario, req: SingleBudgetRequest): Sing
   const point = preparePoint(scenario, req, 'budget');
   const { sc, radio, look, orbitRadiusKm } = point;
   const link = withOverrides(point.link, req);
-  const terms = overriddenTerms(budgetTerms(link, look), req);
+  // a lunar target's budget carries the Moon's noise, its disc centred in the beam (the worst case)
+  const lunar = sc.orbit.kind === 'moon' || sc.orbit.kind === 'lunarSite' || sc.orbit.kind === 'lunarOrbit';
+  const terms = overriddenTerms(budgetTerms(link, look, lunar ? worstMoonTempK(link, look.rangeKm) : 0), req);
   const station = scenario.stations.find((s) => s.id === req.stationId)!; // preparePoint checked it
   const climate = stationClimate(station, linkExceedancePercent(scenario.link));
   return { spacecraftId: sc.id, stationId: req.stationId, radioId: radio.id, look, orbitRadiusKm, terms, climate };
