@@ -1,7 +1,10 @@
 /**
  * Contact windows for a scenario: one target per spacecraft, one site per
  * station, every window of every pair inside the span. Element-set age and
- * ended tracks (decay, SGP4 errors) become warnings, said once each.
+ * ended tracks (decay, SGP4 errors) become warnings, said once each; so do an
+ * ephemeris file that covers only part of the span (the search runs inside its
+ * coverage) and a deep-space craft near solar conjunction. Times are received times;
+ * each contact also carries the transmit times of AOS and LOS and the light time.
  */
 import { makeSite } from '../geometry/earth.js';
 import { prepareMask, type PreparedMask } from '../geometry/mask.js';
