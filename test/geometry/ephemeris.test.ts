@@ -190,3 +190,37 @@ describe('light time', () => {
     }
   });
 });
+
+describe('usable span of an ephemeris file', () => {
+  it('outside it there are no contacts, said in one warning; inside it the windows are those of the full file', async () => {
+    const { findContacts, prepareGeometry } = await import('../../src/plan/contacts.js');
+    const full = parseOem(cruiseOemText(), 'curlew.oem').ephemeris!;
+    const cut = parseOem(
+      cruiseOemText().replace(/USEABLE_START_TIME.*\n/, '').replace('STOP_TIME = ', 'USEABLE_START_TIME = 2026-03-06T00:00:00.000\nUSEABLE_STOP_TIME = 2026-03-08T00:00:00.000\nSTOP_TIME = '),
+      'curlew-cut.oem',
+    ).ephemeris!;
+    const span = { startMs: Date.UTC(2026, 2, 5), endMs: Date.UTC(2026, 2, 10) };
+    const station = { id: 'TST', name: 'Test', latitudeDeg: 37.4, longitudeDeg: -3.2, heightKm: 1.15, mask: { kind: 'constant' as const, elevationDeg: 5 }, timeZone: 'UTC' };
+    const run = (eph: typeof full) => {
+      const scenario = {
+        spacecraft: [{ id: 'C', name: 'C', priority: 1, orbit: { kind: 'ephemeris' as const, ephemeris: eph, grazingMarginKm: 0 }, radios: [] }],
+        stations: [station],
+      } as unknown as Parameters<typeof prepareGeometry>[0];
+      return findContacts(scenario, prepareGeometry(scenario, span), span);
+    };
+    const a = run(full);
+    const b = run(cut);
+    expect(a.warnings).toEqual([]);
+    expect(b.warnings).toHaveLength(1);
+    expect(b.warnings[0]).toMatch(/^C: its ephemeris covers 2026-03-06T00:\d\d:\d\dZ \.\. 2026-03-07T23:40:00Z only/);
+    const inside = a.contacts.filter((c) => c.aosMs > Date.UTC(2026, 2, 6, 1) && c.losMs < Date.UTC(2026, 2, 7, 23));
+    const whole = b.contacts.filter((c) => !c.aosClipped && !c.losClipped);
+    expect(whole).toHaveLength(inside.length);
+    whole.forEach((c, i) => {
+      // the same edges to the search's 10 ms tolerance (its scan grid starts elsewhere)
+      expect(Math.abs(c.aosMs - inside[i]!.aosMs)).toBeLessThan(20);
+      expect(Math.abs(c.losMs - inside[i]!.losMs)).toBeLessThan(20);
+    });
+    expect(b.contacts.every((c) => c.aosMs >= Date.UTC(2026, 2, 6) && c.losMs <= Date.UTC(2026, 2, 8))).toBe(true);
+  });
+});
