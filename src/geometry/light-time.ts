@@ -63,6 +63,7 @@ export abstract class LightTimeTarget implements Target {
   private readonly rEqd = new Float64Array(3);
   private readonly vEqd = new Float64Array(3);
   private readonly tmp = new Float64Array(3);
+  private readonly pos = new Float64Array(3);
   private readonly zero = new Float64Array(3);
   private readonly scratch = new Float64Array(6);
   private readonly sEcef = new Float64Array(3);
@@ -133,10 +134,16 @@ export abstract class LightTimeTarget implements Target {
     return true;
   }
 
-  /** A geocentric EME2000 position (index 0..2 of v) into ECEF at the last reception time, out[o..o+2]. */
-  protected eqjToEcef(v: ArrayLike<number>, out: Float64Array, o = 0): void {
-    rotate3(this.m, v, this.tmp);
-    inertialOfDateToEcef(this.tmp, this.zero, this.siderealRad, this.scratch);
+  /** A geocentric EME2000 position (v[vo..vo+2]) into ECEF at the last reception time, out[o..o+2]. */
+  protected eqjToEcef(v: ArrayLike<number>, out: Float64Array, o = 0, vo = 0): void {
+    const m = this.m;
+    const x = v[vo]!;
+    const y = v[vo + 1]!;
+    const z = v[vo + 2]!;
+    this.pos[0] = m[0]! * x + m[1]! * y + m[2]! * z;
+    this.pos[1] = m[3]! * x + m[4]! * y + m[5]! * z;
+    this.pos[2] = m[6]! * x + m[7]! * y + m[8]! * z;
+    inertialOfDateToEcef(this.pos, this.zero, this.siderealRad, this.scratch);
     out[o] = this.scratch[0]!;
     out[o + 1] = this.scratch[1]!;
     out[o + 2] = this.scratch[2]!;

@@ -179,7 +179,7 @@ export class LunarSiteTarget extends LightTimeTarget {
     this.toEqj(this.nBody, this.eqj, 3);
     this.toEqj(this.pBody, this.eqj, 6);
     for (let i = 0; i < 3; i++) {
-      this.eqjToEcef(this.eqj.subarray(3 * i, 3 * i + 3), this.ecef, 3 * i);
+      this.eqjToEcef(this.eqj, this.ecef, 3 * i, 3 * i);
     }
     for (let i = 0; i < 3; i++) this.vec[i] = this.moonS[i]! + this.eqj[6 + i]!;
     this.eqjToEcef(this.vec, this.siteEcef);
