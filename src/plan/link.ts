@@ -338,13 +338,15 @@ interface ExpectedAccumulator {
   levelBits: Float64Array;
   /** Expected volume per 15-min bin (same bins as the volume). */
   bins: number[];
+  /** Expected-rate pieces, kept where the volume's rate pieces are (Accumulator.pieces). */
+  pieces: number[] | undefined;
 }
 
 const LEVEL_WEIGHTS = expectationWeights(EXPECTED_VOLUME_LEVELS);
 /** Closing-quantity shift per level at one sample (reused). */
 const levelShiftDb = new Float64Array(EXPECTED_VOLUME_LEVELS.length);
 
-function newExpectedAccumulator(table: ExceedanceLevelsTable): ExpectedAccumulator {
+function newExpectedAccumulator(table: ExceedanceLevelsTable, keepPieces: boolean): ExpectedAccumulator {
   const n = table.levels;
   return {
     table,
@@ -355,6 +357,7 @@ function newExpectedAccumulator(table: ExceedanceLevelsTable): ExpectedAccumulat
     step: new Int32Array(n).fill(-1),
     levelBits: new Float64Array(n),
     bins: [],
+    pieces: keepPieces ? [] : undefined,
   };
 }
 
@@ -508,6 +511,15 @@ function integrateLevels(acc: Accumulator, e: ExpectedAccumulator, t0: number, e
     const bin = Math.floor((t0 + fm * span - acc.binStartMs) / VOLUME_BIN_MS);
     while (e.bins.length <= bin) e.bins.push(0);
     e.bins[bin]! += ev;
+    const pc = e.pieces;
+    if (pc !== undefined && ev > 0) {
+      const rate = ev / dtS;
+      const a = t0 + fa * span;
+      const b = t0 + fb * span;
+      const np = pc.length;
+      if (np >= 3 && pc[np - 1] === rate && pc[np - 2] === a) pc[np - 2] = b;
+      else pc.push(a, b, rate);
+    }
   }
 }
 
@@ -622,7 +634,7 @@ export function integrateContacts(
       binStartMs: Math.floor(c.aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS,
       bins: [],
       pieces: overlapping.has(c) ? [] : undefined,
-      expected: link.exceedanceLevels ? newExpectedAccumulator(link.exceedanceLevels) : undefined,
+      expected: link.exceedanceLevels ? newExpectedAccumulator(link.exceedanceLevels, overlapping.has(c)) : undefined,
     };
     const list = bySpacecraft.get(c.spacecraftId) ?? [];
     list.push(acc);
@@ -807,6 +819,7 @@ function finish(acc: Accumulator): void {
     link.expectedVolumeBits = expected.totalBits;
     link.expectedVolumeBinsBits = expected.bins;
     link.expectedVolumeBoundBits = expectedValueBound(EXPECTED_VOLUME_LEVELS, e.levelBits);
+    if (e.pieces !== undefined) link.expectedRatePieces = e.pieces;
   }
   acc.contact.link = link;
 }

@@ -42,6 +42,8 @@ export interface ContactLink {
   expectedVolumeBits?: number;
   expectedVolumeBinsBits?: number[];
   expectedVolumeBoundBits?: number;
+  /** The expected rate as [startMs, endMs, rateBps] pieces, kept where ratePieces is (unique-volume.ts). */
+  expectedRatePieces?: number[];
 }
 
 export const VOLUME_BIN_MS = 15 * 60 * 1000;
