@@ -272,7 +272,7 @@ export function buildAtmosphereTable(input: AtmosphereStationInput, minElevation
  * (its values feed a year average, not a budget line), with slopes from the node values.
  * Accuracy against direct evaluation: test/link/atmosphere/exceedance-levels.test.ts.
  */
-export const LEVEL_GRID_STEP_SQRT_DEG = 0.05;
+export const LEVEL_GRID_STEP_SQRT_DEG = 0.1;
 
 /**
  * Nodes over the edges with slopes by finite differences of the node values themselves
