@@ -15,6 +15,9 @@
  * polynomials in u. totalDb and skyNoiseTempK are recombined from the interpolated terms.
  * Accuracy: test/link/atmosphere/table.test.ts sweeps densely against direct evaluation
  * (target 0.01 dB).
+ * The exceedance axis (buildExceedanceLevelsTable): one value per exceedance level on one
+ * such grid, coarser (LEVEL_GRID_STEP_SQRT_DEG) with slopes from the node values, for the
+ * expected volume (exceedance-levels.ts).
  */
 
 import { ModelRangeError } from '../../errors.js';
