@@ -18,7 +18,7 @@
 import { ModelRangeError } from '../../errors.js';
 import { totalAttenuationDb } from './combine.js';
 import { gasSlantAttenuationDb, gasZenith, type GasZenith } from './p676.js';
-import { newRainPath, prepareRainPath, rainAttenuationDb, type RainPath } from './p618-rain.js';
+import { newRainDetail, newRainPath, prepareRainPath, rainAtExceedanceDb, rainAttenuationDb, rainAttenuationDetail, type RainPath } from './p618-rain.js';
 import {
   newScintillationPath,
   prepareScintillationPath,
@@ -164,6 +164,37 @@ export function absorptionDb(prep: AtmospherePrepared, elevationDeg: number): nu
   const rain = prep.rainModelled ? rainAttenuationDb(prep.rain, elevationDeg) : 0;
   const cloud = prep.cloudZenithDb > 0 ? cloudAttenuationDb(prep.cloudZenithDb, 1, elevationDeg) : 0;
   return gas + rain + cloud;
+}
+
+/** True when two prepared rain paths differ only in their exceedance (steps 2-9 shared). */
+export function sameRainPath(a: AtmospherePrepared, b: AtmospherePrepared): boolean {
+  const x = a.rain;
+  const y = b.rain;
+  return (
+    a.rainModelled && b.rainModelled && x.freqGhz === y.freqGhz && x.absLatitudeDeg === y.absLatitudeDeg && x.stationHeightKm === y.stationHeightKm &&
+    x.rainHeightKm === y.rainHeightKm && x.rainRate001MmH === y.rainRate001MmH && x.polarizationTiltDeg === y.polarizationTiltDeg
+  );
+}
+
+const levelDetail = newRainDetail();
+
+/**
+ * absorptionDb of each of preps at one elevation into out; the rain of the levels that
+ * share the first rain level's path (sameRainPath) is scaled from its A0.01 (P.618-14 step
+ * 10) instead of recomputed.
+ */
+export function absorptionAtLevelsDb(preps: readonly AtmospherePrepared[], elevationDeg: number, out: number[]): void {
+  const first = preps.find((p) => p.rainModelled);
+  if (first) rainAttenuationDetail(first.rain, elevationDeg, levelDetail);
+  preps.forEach((prep, k) => {
+    if (!first || !prep.rainModelled || !sameRainPath(first, prep)) {
+      out[k] = absorptionDb(prep, elevationDeg);
+      return;
+    }
+    const gas = gasSlantAttenuationDb(prep.gas, elevationDeg, prep.stationHeightKm);
+    const cloud = prep.cloudZenithDb > 0 ? cloudAttenuationDb(prep.cloudZenithDb, 1, elevationDeg) : 0;
+    out[k] = gas + rainAtExceedanceDb(prep.rain, levelDetail, elevationDeg, prep.rain.exceedancePercent) + cloud;
+  });
 }
 
 /** Fills totalDb (P.618-14 §2.5) and skyNoiseTempK (§3, absorptive terms only) from the terms. */

@@ -22,7 +22,7 @@
 
 import { ModelRangeError } from '../../errors.js';
 import {
-  absorptionDb,
+  absorptionAtLevelsDb,
   checkElevation,
   combineTerms,
   evaluateTerms,
@@ -337,10 +337,10 @@ export function buildExceedanceLevelsTable(
   const preps = levelInputs.map((inp) => prepareAtmosphere(inp, newAtmospherePrepared()));
   // the branch points of the models do not move with p (P.618 step 7's zeta, the
   // scintillation aperture cut-off), so the first level (the one with rain) gives them all
+  const absorption = new Array<number>(preps.length).fill(0);
   const nodes = buildNodalNodes(gridEdges(preps.slice(0, 1), minDeg), preps.length, LEVEL_GRID_STEP_SQRT_DEG, (el, out) => {
-    preps.forEach((prep, k) => {
-      out[k] = valueOf(k, absorptionDb(prep, el), el);
-    });
+    absorptionAtLevelsDb(preps, el, absorption);
+    for (let k = 0; k < preps.length; k++) out[k] = valueOf(k, absorption[k] as number, el);
   });
   return new InterpolatedExceedanceLevels(minDeg, preps.length, nodes);
 }
