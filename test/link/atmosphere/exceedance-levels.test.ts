@@ -8,6 +8,7 @@ import { buildExceedanceLevelsTable } from '../../../src/link/atmosphere/table.j
 import { absorptionDb, newAtmospherePrepared, prepareAtmosphere } from '../../../src/link/atmosphere/prepare.js';
 import { EXPECTED_VOLUME_LEVELS } from '../../../src/link/atmosphere/exceedance-levels.js';
 import type { AtmosphereStationInput } from '../../../src/link/atmosphere/index.js';
+import { newRainDetail, rainAtExceedanceDb, rainAttenuationDb, rainAttenuationDetail } from '../../../src/link/atmosphere/p618-rain.js';
 
 // an invented tropical station (inputs of the kind the ITU-R maps give there) at 20.2 GHz
 const base: AtmosphereStationInput = {
@@ -46,5 +47,18 @@ describe('exceedance-level table', () => {
     const out = new Float64Array(10);
     table.valuesAt(30, out);
     for (let k = 0; k + 1 < 10; k++) expect(out[k]!).toBeGreaterThan(out[k + 1]!);
+  });
+
+  it('P.618-14 step 10 alone from A0.01 gives the full steps 2-10 at every p (1e-12 relative)', () => {
+    const at001 = prepareAtmosphere({ ...base, exceedancePercent: 0.01 }, newAtmospherePrepared());
+    const d = newRainDetail();
+    for (const p of [0.001, 0.004, 0.05, 0.7, 1, 2.5, 5]) {
+      const prep = prepareAtmosphere({ ...base, exceedancePercent: p }, newAtmospherePrepared());
+      for (const el of [1, 4.9, 10, 24.9, 25, 60, 90]) {
+        rainAttenuationDetail(at001.rain, el, d);
+        const full = rainAttenuationDb(prep.rain, el);
+        expect(Math.abs(rainAtExceedanceDb(prep.rain, d, el, p) - full)).toBeLessThanOrEqual(1e-12 * full);
+      }
+    }
   });
 });
