@@ -212,7 +212,7 @@ function exceedanceLevelsFor(
 }
 
 export interface PrepareLinksOptions {
-  /** Tabulate the absorption at the expected volume's levels, so that contacts carry their expected volume (default true). */
+  /** Tabulate the expected volume's exceedance levels, so that contacts carry their expected volume (default true). */
   expectedVolume?: boolean;
 }
 
