@@ -4,17 +4,18 @@
  *
  * Criterion: the Sun's limb within SUN_OUTAGE_BEAMWIDTHS half-power beamwidths of
  * boresight, i.e. the offset of the Sun's centre below (solar radius + k theta3). At
- * k = 1 that is where the disc noise of link/body-noise.ts is above ~6 % of its
- * peak for a beam narrower than the Sun (common practice for outage prediction
- * counts from about the same point).
+ * k = 1, for a beam narrower than the Sun, the limb is where the disc noise of
+ * link/body-noise.ts has fallen to about 1 % of the Sun's brightness
+ * (0.5 erfc(sqrt(4 ln 2)) for a straight edge in a Gaussian beam): 60-90 K of the
+ * ~11,000 K quiet Sun at X/K band, still about 1-2 dB on a cooled receiver. k is the
+ * stated multiple.
  * Search (our own): a contact of up to 3 h whose Sun stays below the horizon, or above
  * the contact's highest elevation, by more than the limit is passed over at once;
  * otherwise f(t) = offset - limit is sampled every SUN_OUTAGE_SCAN_S inside the
  * contact; an interval whose Sun is further from the great-circle arc between its two
  * boresights than the limit plus a slack (15 % of the arc for the track's curvature,
  * plus the Sun's own 0.0042 deg/s in Earth-fixed axes) holds no outage; any other
- * interval is searched for its
- * minimum (golden section to SUN_OUTAGE_TOLERANCE_S) and, when it dips below zero, its
+ * interval is searched for its minimum (golden section to SUN_OUTAGE_TOLERANCE_S) and, when it dips below zero, its
  * edges are bisected to the same tolerance.
  * Units: ms, s, degrees.
  */

@@ -6,6 +6,7 @@
  * carries the Sun's noise (plan/link.ts).
  */
 import { SunOutageSearch } from '../geometry/sun-outage.js';
+import { SUN_RADIUS_KM } from '../geometry/sky-bodies.js';
 import { discAntennaTempK } from '../link/body-noise.js';
 import type { Geometry } from './contacts.js';
 import { linkKey, type LinkSetup } from './link.js';
@@ -27,7 +28,7 @@ export function findSunOutages(contacts: readonly Contact[], geometry: Geometry,
     }
     for (const w of search.find(site, c.aosMs, c.losMs, link.rxBeamwidthDeg, c.maxElevationDeg)) {
       geometry.sky.at(w.minAtMs);
-      const sunRadiusDeg = Math.asin(696_000 / Math.hypot(geometry.sky.sunEcefKm[0]! - site.ecefKm[0], geometry.sky.sunEcefKm[1]! - site.ecefKm[1], geometry.sky.sunEcefKm[2]! - site.ecefKm[2])) * (180 / Math.PI);
+      const sunRadiusDeg = Math.asin(SUN_RADIUS_KM / Math.hypot(geometry.sky.sunEcefKm[0]! - site.ecefKm[0], geometry.sky.sunEcefKm[1]! - site.ecefKm[1], geometry.sky.sunEcefKm[2]! - site.ecefKm[2])) * (180 / Math.PI);
       out.push({
         stationId: c.stationId,
         spacecraftId: c.spacecraftId,
