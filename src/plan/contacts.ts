@@ -77,6 +77,13 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
       const age = elementAgeWarning(sc.orbit.sets, span);
       if (age) warnings.push(`${sc.id}: ${age}`);
     }
+    if (sc.orbit.kind === 'lunarOrbit') {
+      const e = sc.orbit.elements.epochMs;
+      const days = Math.max(Math.abs(span.startMs - e), Math.abs(span.endMs - e)) / 86_400_000;
+      if (days > LUNAR_ELEMENTS_WARNING_DAYS) {
+        warnings.push(`${sc.id}: its lunar elements (epoch ${isoUtc(e, 0)}) are up to ${days.toFixed(0)} days from the window; two-body motion about the Moon drifts by kilometres per day (use an OEM from flight dynamics)`);
+      }
+    }
     const before = target.evaluations;
     let searchSpan = span;
     const cov = target.coverage;
@@ -123,6 +130,9 @@ function transmitTimes(target: Target, site: Site, p: { aosMs: number; tcaMs: nu
   const los = tau(p.losMs);
   return { aosTransmitMs: p.aosMs - aos * 1000, losTransmitMs: p.losMs - los * 1000, lightTimeS: tau(p.tcaMs) };
 }
+
+/** Lunar two-body elements further than this from any part of the window get a warning, days (lunar-orbit.ts: km per day of drift). */
+export const LUNAR_ELEMENTS_WARNING_DAYS = 14;
 
 /** Beyond this geocentric distance a craft is in deep space, km (ITU Radio Regulations No. 1.177: 2 x 10^6 km). */
 export const DEEP_SPACE_KM = 2e6;

@@ -208,3 +208,20 @@ describe('lunar orbiter (two-body about the Moon)', () => {
     expect(disagreeS).toBeLessThanOrEqual(2 * passes.length + 2);
   });
 });
+
+describe('lunar elements far from the window', () => {
+  it('are warned of past 14 days (two-body drift), not within them', async () => {
+    const { findContacts, prepareGeometry } = await import('../../src/plan/contacts.js');
+    const el = { epochMs: Date.UTC(2026, 2, 5), semiMajorAxisKm: 1837.4, eccentricity: 0, inclinationDeg: 90, raanDeg: 0, argPericenterDeg: 0, meanAnomalyDeg: 0, grazingMarginKm: 0 };
+    const run = (startMs: number) => {
+      const span = { startMs, endMs: startMs + 6 * 3_600_000 };
+      const scenario = {
+        spacecraft: [{ id: 'LO', name: 'LO', priority: 1, orbit: { kind: 'lunarOrbit' as const, elements: el }, radios: [] }],
+        stations: [{ id: 'TST', name: 'Test', latitudeDeg: 37.4, longitudeDeg: -3.2, heightKm: 1.15, mask: { kind: 'constant' as const, elevationDeg: 5 }, timeZone: 'UTC' }],
+      } as unknown as Parameters<typeof prepareGeometry>[0];
+      return findContacts(scenario, prepareGeometry(scenario, span), span).warnings;
+    };
+    expect(run(Date.UTC(2026, 2, 10))).toEqual([]);
+    expect(run(Date.UTC(2026, 3, 1))).toEqual([expect.stringMatching(/^LO: its lunar elements \(epoch 2026-03-05T00:00:00Z\) are up to 27 days from the window/)]);
+  });
+});
