@@ -1,13 +1,12 @@
 /** `passbudget budget`: one link budget, term by term, at an elevation or range. */
 import { Command, Option } from 'commander';
 import { UsageError } from '../errors.js';
-import { loadScenario } from '../scenario/load.js';
 import { demoFiles } from '../scenario/paths.js';
 import { singleBudget, type SingleBudgetRequest } from '../plan/single.js';
 import { renderBudgetTable, renderBudgetJson } from '../report/budget.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
-import { numberFlag, readGeometryOverrides } from './options.js';
+import { numberFlag, readGeometryOverrides, loadScenarioNoting } from './options.js';
 
 
 
@@ -44,7 +43,7 @@ export function registerBudget(program: Command, io: CliIo, setExit: SetExit): v
     .addOption(new Option('--format <format>', 'output format').choices(['table', 'json']).default('table'))
     .action((raw: Raw) => {
       const demo = demoFiles();
-      const scenario = loadScenario({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile });
+      const scenario = loadScenarioNoting({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile }, io);
       const req: SingleBudgetRequest = { spacecraftId: raw.spacecraftId, stationId: raw.stationId };
       if (raw.radioId !== undefined) req.radioId = raw.radioId;
       Object.assign(req, readGeometryOverrides(raw));

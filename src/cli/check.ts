@@ -1,10 +1,10 @@
 /** `passbudget check`: validate scenario files and report every problem at once. */
 import type { Command } from 'commander';
-import { loadScenario } from '../scenario/load.js';
 import { demoFiles } from '../scenario/paths.js';
 import { ScenarioError } from '../errors.js';
 import { preflight } from '../plan/preflight.js';
 import type { CliIo } from './io.js';
+import { loadScenarioNoting } from './options.js';
 import type { SetExit } from './commands.js';
 import { climateReports } from './climate.js';
 import { linkExceedancePercent } from '../plan/link.js';
@@ -19,7 +19,7 @@ export function registerCheck(program: Command, io: CliIo, setExit: SetExit): vo
     .action((raw: { spacecraft?: string; network?: string }) => {
       const demo = demoFiles();
       const files = { spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile };
-      const scenario = loadScenario(files); // throws ScenarioError with every problem
+      const scenario = loadScenarioNoting(files, io); // throws ScenarioError with every problem
       const p = linkExceedancePercent(scenario.link);
       const climate = renderClimateTable(climateReports(scenario, p), p); // a station the maps cannot serve: ScenarioError naming the file
       // the model-range checks plan runs, for every radio at every station, and plan's warnings

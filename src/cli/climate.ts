@@ -4,10 +4,10 @@ import { ScenarioError, UsageError, type Problem } from '../errors.js';
 import { stationClimate } from '../link/climate/station.js';
 import { linkExceedancePercent } from '../plan/link.js';
 import { renderClimateJson, renderClimateTable, type StationClimateReport } from '../report/climate.js';
-import { loadScenario } from '../scenario/load.js';
 import { demoFiles } from '../scenario/paths.js';
 import type { Scenario } from '../scenario/types.js';
 import type { CliIo } from './io.js';
+import { loadScenarioNoting } from './options.js';
 import type { SetExit } from './commands.js';
 
 /** Every station's climate at the exceedance; all stations' problems at once (ScenarioError). */
@@ -36,7 +36,7 @@ export function registerClimate(program: Command, io: CliIo, setExit: SetExit): 
     .addOption(new Option('--format <format>', 'output format').choices(['table', 'json']).default('table'))
     .action((raw: { network?: string; spacecraft?: string; availability?: string; format: string }) => {
       const demo = demoFiles();
-      const scenario = loadScenario({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile });
+      const scenario = loadScenarioNoting({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile }, io);
       let settings = scenario.link;
       if (raw.availability !== undefined) {
         const a = Number(raw.availability);

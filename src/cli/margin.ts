@@ -4,13 +4,12 @@
  * <out>/margin.csv and <out>/margin.json, and exits 1 when any row fails.
  */
 import type { Command } from 'commander';
-import { loadScenario } from '../scenario/load.js';
 import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
 import { marginGatePasses, marginRows } from '../plan/margin.js';
 import { renderMarginCsv, renderMarginJson, renderMarginTable, type MarginReport } from '../report/margin.js';
 import { writeOutputs } from '../report/write.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, loadScenarioNoting } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
@@ -22,7 +21,7 @@ export function registerMargin(program: Command, io: CliIo, setExit: SetExit): v
   ).action(async (raw) => {
     const opts = readCommonOptions(raw);
     prepareOutput(opts, io, ['margin.json', 'margin.csv']);
-    const scenario = loadScenario(opts.files);
+    const scenario = loadScenarioNoting(opts.files, io);
     const span = spanFor(opts, scenario, io);
     assertPreflight(scenario, span); // file and field of a model-range problem, before any work
     const plan = await withNamedProblems(scenario, span, () => runPlanParallel(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}));

@@ -6,7 +6,7 @@ import { Command, Option } from 'commander';
 import { IANAZone } from 'luxon';
 import { UsageError } from '../errors.js';
 import { demoFiles } from '../scenario/paths.js';
-import { INSTANT_RANGE_TEXT, parseInstant, type ScenarioFiles } from '../scenario/load.js';
+import { INSTANT_RANGE_TEXT, loadScenario, parseInstant, type ScenarioFiles } from '../scenario/load.js';
 import { parseDurationS } from '../time/duration.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import type { CliIo } from './io.js';
@@ -148,4 +148,11 @@ export function readGeometryOverrides(raw: GeometryOverrideFlags): {
   if (point !== undefined) out.pointingLossDb = point;
   if (extra !== undefined) out.extraLossDb = extra;
   return out;
+}
+
+/** Loads the scenario (every problem at once, ScenarioError) and prints its notes and warnings to stderr. */
+export function loadScenarioNoting(files: ScenarioFiles, io: CliIo): Scenario {
+  const scenario = loadScenario(files);
+  for (const n of scenario.notices) io.err(`${n.level}: ${n.message}\n`);
+  return scenario;
 }

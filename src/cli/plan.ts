@@ -1,6 +1,5 @@
 /** `passbudget plan`: contact windows, volume per contact, report files under --out. */
 import type { Command } from 'commander';
-import { loadScenario } from '../scenario/load.js';
 import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
 import { renderPlanTable, renderPlanJson, renderPlanCsv } from '../report/plan.js';
@@ -16,7 +15,7 @@ import { renderScheduleCsv, renderScheduleTable, scheduleJson } from '../report/
 import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable } from '../report/recorder.js';
 import { marginRows } from '../plan/margin.js';
 import { countHook, progressLine } from './progress.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, loadScenarioNoting } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
@@ -34,7 +33,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       const opts = readCommonOptions(raw);
       prepareOutput(opts, io, PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
-      const scenario = loadScenario(opts.files);
+      const scenario = loadScenarioNoting(opts.files, io);
       const span = spanFor(opts, scenario, io);
       assertPreflight(scenario, span); // file and field of a model-range problem, before any work
       const progress = progressLine(io, 'plan');

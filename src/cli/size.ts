@@ -9,12 +9,11 @@
  */
 import { Option, type Command } from 'commander';
 import { UsageError } from '../errors.js';
-import { loadScenario } from '../scenario/load.js';
 import { assertPreflight } from '../plan/preflight.js';
 import { DEFAULT_SIZING_LINK_STEP_S, prepareSizingContext, sizeForWeek, sizePowerAtGeometry, type SolveFor, type VolumeBasis } from '../plan/sizing.js';
 import { pointSizingJson, renderPointSizingText, renderWeekSizingText, weekSizingJson } from '../report/sizing.js';
 import { writeOutputs } from '../report/write.js';
-import { addCommonOptions, numberFlag, prepareOutput, readGeometryOverrides, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, numberFlag, prepareOutput, readGeometryOverrides, readCommonOptions, spanFor, loadScenarioNoting } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
@@ -63,7 +62,7 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
       const opts = readCommonOptions(raw);
       if (opts.format === 'csv') throw new UsageError('--format: size prints table or json');
       prepareOutput(opts, io, ['sizing.json']);
-      const scenario = loadScenario(opts.files);
+      const scenario = loadScenarioNoting(opts.files, io);
       const availability = numberFlag('--availability', raw.availability, 90, 99.999);
       if (availability !== undefined) scenario.link = { ...scenario.link, availabilityPercent: availability };
       const rate = numberFlag('--target-rate-bps', raw.targetRateBps, 1e-3, 1e12);

@@ -103,6 +103,7 @@ export function prepareLink(
 
   // --- receive antenna gain and beamwidth
   const rx = station.receiver;
+  if (!rx) throw new Error(`prepareLink: station ${station.id} has no receiver (callers check radioHeardAt first)`);
   let rxGainDbi: number;
   let rxBeamwidthDeg = NaN;
   let antennaNoiseTempK = 0;

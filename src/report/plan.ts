@@ -77,7 +77,7 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
 function summaryLine(rows: Contact[], hasLink: boolean): string {
   const totalS = rows.reduce((s, c) => s + c.durationS, 0);
   let line = `${rows.length} window${rows.length === 1 ? '' : 's'}, contact time ${formatDuration(totalS)}`;
-  if (hasLink) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
+  if (hasLink && rows.some((c) => c.link !== undefined)) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
   return line;
 }
 

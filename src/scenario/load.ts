@@ -27,9 +27,11 @@ import {
 import { parseTleText } from './tle.js';
 import { parseOmm } from './omm.js';
 import { resolveCoding } from './coding.js';
-import { meanMotionAndEccentricity, perigeeProblem } from './elements-common.js';
+import { MIN_PERIGEE_HEIGHT_KM, meanMotionAndEccentricity, perigeeProblem } from './elements-common.js';
+import { sgp4MeanElements, sunSynchronousInclinationDeg } from '../geometry/mean-elements.js';
+import { WGS84_EQUATORIAL_RADIUS_KM } from '../geometry/earth.js';
 import { toFeeds } from './feeds.js';
-import type { ElementSet, OrbitSource, Radio, Scenario, Spacecraft, Station, Span, Mask, Receiver, TxAntenna } from './types.js';
+import type { ElementSet, Notice, OrbitSource, Radio, Scenario, Spacecraft, Station, Span, Mask, Receiver, TxAntenna } from './types.js';
 
 export interface ScenarioFiles {
   spacecraftFile: string;
@@ -40,8 +42,9 @@ export const DEFAULT_AVAILABILITY_PERCENT = 99.5;
 
 export function loadScenario(files: ScenarioFiles): Scenario {
   const problems: Problem[] = [];
-  const fleet = loadFleet(files.spacecraftFile, problems);
-  const stations = loadNetwork(files.networkFile, problems);
+  const notices: Notice[] = [];
+  const fleet = loadFleet(files.spacecraftFile, problems, notices);
+  const stations = loadNetwork(files.networkFile, problems, notices);
   if (problems.length > 0 || fleet === undefined || stations === undefined) throw new ScenarioError(problems);
   return {
     spacecraft: fleet.spacecraft,
@@ -49,6 +52,7 @@ export function loadScenario(files: ScenarioFiles): Scenario {
     ...(fleet.span ? { span: fleet.span } : {}),
     link: fleet.link,
     sources: { spacecraftFile: files.spacecraftFile, networkFile: files.networkFile },
+    notices,
   };
 }
 
@@ -111,7 +115,7 @@ function checkValidPartsOfNetwork(data: unknown, file: string, problems: Problem
   });
 }
 
-function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraft' | 'span' | 'link'> | undefined {
+function loadFleet(file: string, problems: Problem[], notices: Notice[]): Pick<Scenario, 'spacecraft' | 'span' | 'link'> | undefined {
   const read = readData(file, problems);
   if (read === undefined) return undefined;
   const { data, text } = read;
@@ -124,7 +128,7 @@ function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraf
   const doc = parsed.data;
   const before = problems.length;
   checkUnique(doc.spacecraft.map((s) => s.id), file, 'spacecraft', problems);
-  const spacecraft = doc.spacecraft.map((entry, i) => toSpacecraft(entry, file, `spacecraft[${i}]`, problems));
+  const spacecraft = doc.spacecraft.map((entry, i) => toSpacecraft(entry, file, `spacecraft[${i}]`, problems, notices));
   let span: Span | undefined;
   if (doc.window) {
     const from = parseInstant(doc.window.from);
@@ -175,8 +179,8 @@ function checkUnique(ids: string[], file: string, path: string, problems: Proble
   });
 }
 
-function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, problems: Problem[]): Spacecraft {
-  const orbit = toOrbit(entry.orbit, file, `${path}.orbit`, problems);
+function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, problems: Problem[], notices: Notice[] = []): Spacecraft {
+  const orbit = toOrbit(entry.orbit, file, `${path}.orbit`, problems, notices);
   const radios = (entry.radios ?? []).map((r, j) => toRadio(r, file, `${path}.radios[${j}]`, problems));
   checkUnique((entry.radios ?? []).map((r) => r.id), file, `${path}.radios`, problems);
   if (entry.dataRadio !== undefined) {
@@ -204,10 +208,22 @@ function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, proble
   };
 }
 
-function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, problems: Problem[]): OrbitSource {
+function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, problems: Problem[], notices: Notice[] = []): OrbitSource {
   if (orbit.moon) return { kind: 'moon' };
   if (orbit.sky) return { kind: 'fixedSky', ...orbit.sky };
   let sets: ElementSet[] = [];
+  if (orbit.planned !== undefined) {
+    const set = plannedElementSet(orbit.planned, file, `${path}.planned`, problems);
+    if (set) {
+      sets = [set];
+      notices.push({
+        level: 'note',
+        message: `${file}: ${path}.planned: SGP4 mean elements from the planned orbit: ${set.omm!.meanMotionRevPerDay.toFixed(8)} rev/day, inclination ${set.omm!.inclinationDeg.toFixed(4)} deg, RAAN ${set.omm!.raanDeg.toFixed(4)} deg at ${isoFromMs(set.epochMs)}, no drag`,
+      });
+    }
+    if (orbit.catalogNumber !== undefined) problems.push({ file, path: `${path}.catalogNumber`, message: 'picks an element set from a file; a planned orbit has none (leave it out)' });
+    return { kind: 'elements', sets };
+  }
   if (orbit.tle !== undefined) sets = collect(parseTleText(orbit.tle, file, `${path}.tle`), problems);
   else if (orbit.tleFile !== undefined) {
     const target = resolveBeside(file, orbit.tleFile);
@@ -216,12 +232,12 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
     else sets = collect(named(parseTleText(text.value, target, ''), `${file}: ${path}.tleFile`), problems);
   } else if (orbit.omm !== undefined) {
     const text = typeof orbit.omm === 'string' ? orbit.omm : JSON.stringify(orbit.omm);
-    sets = collect(parseOmm(text, file, `${path}.omm`, typeof orbit.omm === 'string' ? undefined : 'json'), problems);
+    sets = collect(parseOmm(text, file, `${path}.omm`, typeof orbit.omm === 'string' ? undefined : 'json'), problems, notices);
   } else if (orbit.ommFile !== undefined) {
     const target = resolveBeside(file, orbit.ommFile);
     const text = readText(target, '');
     if (!text.ok) appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.ommFile)` })));
-    else sets = collect(named(parseOmm(text.value, target, ''), `${file}: ${path}.ommFile`), problems);
+    else sets = collect(named(parseOmm(text.value, target, ''), `${file}: ${path}.ommFile`), problems, notices);
   }
   if (orbit.catalogNumber !== undefined) {
     const wanted = String(orbit.catalogNumber).trim().replace(/^0+(?=.)/, '');
@@ -242,6 +258,71 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
   return { kind: 'elements', sets };
 }
 
+/** The SGP4 element set of a planned orbit (mean parameters), or undefined with problems pushed. */
+function plannedElementSet(o: NonNullable<SpacecraftEntry['orbit']['planned']>, file: string, path: string, problems: Problem[]): ElementSet | undefined {
+  const epochMs = parseInstant(o.epoch);
+  if (epochMs === undefined) {
+    problems.push({ file, path: `${path}.epoch`, message: `${JSON.stringify(o.epoch)} is not an ISO 8601 time from ${INSTANT_RANGE_TEXT} (e.g. "2026-03-05T00:00:00Z")` });
+    return undefined;
+  }
+  const semiMajorAxisKm = o.semiMajorAxisKm ?? WGS84_EQUATORIAL_RADIUS_KM + (o.altitudeKm ?? 0);
+  const eccentricity = o.eccentricity ?? 0;
+  const perigeeKm = semiMajorAxisKm * (1 - eccentricity) - WGS84_EQUATORIAL_RADIUS_KM;
+  if (perigeeKm < MIN_PERIGEE_HEIGHT_KM) {
+    problems.push({ file, path, message: `puts the perigee at ${perigeeKm.toFixed(0)} km; valid: a perigee at least ${MIN_PERIGEE_HEIGHT_KM} km above the WGS-84 equatorial radius` });
+    return undefined;
+  }
+  if (o.sunSynchronous && sunSynchronousInclinationDeg(semiMajorAxisKm, eccentricity) === undefined) {
+    problems.push({ file, path: `${path}.sunSynchronous`, message: `no inclination makes an orbit of semi-major axis ${semiMajorAxisKm.toFixed(0)} km sun-synchronous; valid: below about 12,350 km` });
+    return undefined;
+  }
+  let ltanHours: number | undefined;
+  if (o.ltan !== undefined) {
+    const [h, m, sec] = o.ltan.split(':').map(Number);
+    ltanHours = (h ?? 0) + (m ?? 0) / 60 + (sec ?? 0) / 3600;
+  }
+  const el = sgp4MeanElements({
+    semiMajorAxisKm,
+    eccentricity,
+    ...(o.inclinationDeg !== undefined ? { inclinationDeg: o.inclinationDeg } : {}),
+    ...(o.sunSynchronous ? { sunSynchronous: true } : {}),
+    ...(o.raanDeg !== undefined ? { raanDeg: o.raanDeg } : {}),
+    ...(ltanHours !== undefined ? { ltanHours } : {}),
+    argPerigeeDeg: o.argPerigeeDeg ?? 0,
+    meanAnomalyDeg: o.meanAnomalyDeg ?? 0,
+    epochMs,
+  });
+  const epochIso = `${new Date(epochMs).toISOString().slice(0, 23)}000`;
+  return {
+    origin: `${file}: ${path}`,
+    catalogNumber: '0',
+    epochMs,
+    omm: {
+      objectName: path,
+      objectId: '',
+      epochIso,
+      meanMotionRevPerDay: el.meanMotionRevPerDay,
+      eccentricity: el.eccentricity,
+      inclinationDeg: el.inclinationDeg,
+      raanDeg: el.raanDeg,
+      argPericenterDeg: el.argPerigeeDeg,
+      meanAnomalyDeg: el.meanAnomalyDeg,
+      bstarPerEarthRadii: 0,
+      meanMotionDotRevPerDay2: 0,
+      meanMotionDdotRevPerDay3: 0,
+      noradCatId: 0,
+      elementSetNo: 0,
+      revAtEpoch: 0,
+      classification: 'U',
+      ephemerisType: 0,
+    },
+  };
+}
+
+function isoFromMs(tMs: number): string {
+  return new Date(tMs).toISOString().replace('.000Z', 'Z');
+}
+
 function orbitField(orbit: SpacecraftEntry['orbit']): string {
   return orbit.tle !== undefined ? 'tle' : orbit.tleFile !== undefined ? 'tleFile' : orbit.omm !== undefined ? 'omm' : 'ommFile';
 }
@@ -253,12 +334,17 @@ function setLabel(set: ElementSet, file: string): string {
 }
 
 /** Problems in a file named by another say which field named it. */
-function named(result: { sets: ElementSet[]; problems: Problem[] }, by: string): { sets: ElementSet[]; problems: Problem[] } {
-  return { sets: result.sets, problems: result.problems.map((p) => ({ ...p, message: `${p.message} (named by ${by})` })) };
+function named(result: { sets: ElementSet[]; problems: Problem[]; warnings?: string[] }, by: string): { sets: ElementSet[]; problems: Problem[]; warnings: string[] } {
+  return {
+    sets: result.sets,
+    problems: result.problems.map((p) => ({ ...p, message: `${p.message} (named by ${by})` })),
+    warnings: (result.warnings ?? []).map((w) => `${w} (named by ${by})`),
+  };
 }
 
-function collect(result: { sets: ElementSet[]; problems: Problem[] }, problems: Problem[]): ElementSet[] {
+function collect(result: { sets: ElementSet[]; problems: Problem[]; warnings?: string[] }, problems: Problem[], notices: Notice[] = []): ElementSet[] {
   appendAll(problems, result.problems);
+  for (const w of result.warnings ?? []) notices.push({ level: 'warning', message: w });
   return result.sets;
 }
 
@@ -294,7 +380,7 @@ function toRadio(r: RadioEntry, file: string, path: string, problems: Problem[])
   };
 }
 
-function loadNetwork(file: string, problems: Problem[]): Station[] | undefined {
+function loadNetwork(file: string, problems: Problem[], notices: Notice[]): Station[] | undefined {
   const read = readData(file, problems);
   if (read === undefined) return undefined;
   const { data, text } = read;
@@ -306,11 +392,11 @@ function loadNetwork(file: string, problems: Problem[]): Station[] | undefined {
   }
   const before = problems.length;
   checkUnique(parsed.data.stations.map((s) => s.id), file, 'stations', problems);
-  const stations = parsed.data.stations.map((s, i) => toStation(s, file, `stations[${i}]`, problems));
+  const stations = parsed.data.stations.map((s, i) => toStation(s, file, `stations[${i}]`, problems, notices));
   return problems.length > before ? undefined : stations;
 }
 
-function toStation(s: StationEntry, file: string, path: string, problems: Problem[]): Station {
+function toStation(s: StationEntry, file: string, path: string, problems: Problem[], notices: Notice[] = []): Station {
   let mask: Mask = { kind: 'constant', elevationDeg: s.maskDeg ?? 5 };
   if (s.horizon) {
     const pts = [...s.horizon].sort((a, b) => a[0] - b[0]);
@@ -332,8 +418,42 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
     }
     mask = { kind: 'profile', azimuthDeg: pts.map((p) => p[0] % 360), elevationDeg: pts.map((p) => p[1]) };
   }
-  const a = s.antenna;
-  const rx = s.receiver;
+  const receiver = s.antenna && s.receiver ? toReceiver(s.antenna, s.receiver, file, path, problems) : undefined;
+  const c = s.climate ?? {};
+  const feeds = receiver ? toFeeds(s, receiver, file, path, problems) : undefined;
+  if (s.heightM === undefined) notices.push({ level: 'note', message: `${file}: ${path}.heightM: not given; taken as 0 m above the WGS-84 ellipsoid` });
+  if (s.timeZone === undefined) notices.push({ level: 'note', message: `${file}: ${path}.timeZone: not given; local days and times in UTC` });
+  if (receiver === undefined) notices.push({ level: 'note', message: `${file}: ${path}: no antenna and receiver; its windows are found, with no link, volume or margin` });
+  return {
+    id: s.id,
+    name: s.name ?? s.id,
+    latitudeDeg: s.latitudeDeg,
+    longitudeDeg: s.longitudeDeg > 180 ? s.longitudeDeg - 360 : s.longitudeDeg,
+    heightKm: (s.heightM ?? 0) / 1000,
+    mask,
+    timeZone: s.timeZone ?? 'UTC',
+    ...(receiver ? { receiver: feeds ? feeds[0]!.receiver : receiver } : {}),
+    pointingErrorDeg: s.antenna?.pointingErrorDeg ?? 0,
+    polarization: s.antenna?.polarization ?? 'RHCP',
+    climate: {
+      ...(c.rainRate001MmH !== undefined ? { rainRate001MmH: c.rainRate001MmH } : {}),
+      ...(c.rainHeightKm !== undefined ? { rainHeightKm: c.rainHeightKm } : {}),
+      ...(c.waterVapourDensityGM3 !== undefined ? { surfaceWaterVapourDensityGM3: c.waterVapourDensityGM3 } : {}),
+      ...(c.temperatureK !== undefined ? { surfaceTemperatureK: c.temperatureK } : {}),
+      ...(c.pressureHpa !== undefined ? { surfacePressureHpa: c.pressureHpa } : {}),
+      ...(c.nWetMedian !== undefined ? { nWetMedian: c.nWetMedian } : {}),
+      ...(c.cloudLiquidWaterKgM2 !== undefined ? { cloudLiquidWaterKgM2: c.cloudLiquidWaterKgM2 } : {}),
+    },
+    antennaCount: s.antenna?.count ?? 1,
+    setupTimeS: s.antenna?.setupTimeS ?? 0,
+    ...(feeds ? { feeds } : {}),
+  };
+}
+
+type AntennaEntry = NonNullable<StationEntry['antenna']>;
+type ReceiverEntry = NonNullable<StationEntry['receiver']>;
+
+function toReceiver(a: AntennaEntry, rx: ReceiverEntry, file: string, path: string, problems: Problem[]): Receiver {
   let receiver: Receiver;
   if (rx.gOverTDbK !== undefined) {
     receiver = {
@@ -358,30 +478,5 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
   if (a.gainDbi !== undefined && a.dishDiameterM !== undefined && rx.gOverTDbK === undefined) {
     problems.push({ file, path: `${path}.antenna`, message: 'has both gainDbi and dishDiameterM; give one (the gain is computed from the dish)' });
   }
-  const c = s.climate ?? {};
-  const feeds = toFeeds(s, receiver, file, path, problems);
-  return {
-    id: s.id,
-    name: s.name ?? s.id,
-    latitudeDeg: s.latitudeDeg,
-    longitudeDeg: s.longitudeDeg > 180 ? s.longitudeDeg - 360 : s.longitudeDeg,
-    heightKm: s.heightM / 1000,
-    mask,
-    timeZone: s.timeZone,
-    receiver: feeds ? feeds[0]!.receiver : receiver,
-    pointingErrorDeg: a.pointingErrorDeg ?? 0,
-    polarization: a.polarization ?? 'RHCP',
-    climate: {
-      ...(c.rainRate001MmH !== undefined ? { rainRate001MmH: c.rainRate001MmH } : {}),
-      ...(c.rainHeightKm !== undefined ? { rainHeightKm: c.rainHeightKm } : {}),
-      ...(c.waterVapourDensityGM3 !== undefined ? { surfaceWaterVapourDensityGM3: c.waterVapourDensityGM3 } : {}),
-      ...(c.temperatureK !== undefined ? { surfaceTemperatureK: c.temperatureK } : {}),
-      ...(c.pressureHpa !== undefined ? { surfacePressureHpa: c.pressureHpa } : {}),
-      ...(c.nWetMedian !== undefined ? { nWetMedian: c.nWetMedian } : {}),
-      ...(c.cloudLiquidWaterKgM2 !== undefined ? { cloudLiquidWaterKgM2: c.cloudLiquidWaterKgM2 } : {}),
-    },
-    antennaCount: a.count ?? 1,
-    setupTimeS: a.setupTimeS ?? 0,
-    ...(feeds ? { feeds } : {}),
-  };
+  return receiver;
 }
