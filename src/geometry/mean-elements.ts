@@ -12,12 +12,12 @@
  *   D. A. Vallado et al., "Revisiting Spacetrack Report #3", AIAA 2006-6753, `initl`).
  *   Here the given semi-major axis is taken as that a0'' and the recovery is inverted by
  *   fixed-point iteration, so SGP4 reads back exactly the axis asked for (to 1e-12).
- * - Sun-synchronous inclination: first-order J2 secular node rate
+ * - Sun-synchronous inclination: the inclination at which SGP4's own secular node rate
+ *   (J2, J2^2 and J4 terms, Hoots & Roehrich 1980 sec. 6) is one revolution per tropical
+ *   year (365.2421897 d), so the node keeps its local time under the propagator used. It
+ *   starts from, and stays within 0.05 deg of, the first-order J2 formula
  *   dOmega/dt = -3/2 n J2 (R/p)^2 cos i (Vallado, "Fundamentals of Astrodynamics and
- *   Applications", 4th ed., 2013, eq. 9-41 and section 11.4, from memory) set equal to one
- *   revolution per tropical year (365.2421897 d), with SGP4's own WGS-72 n, J2 and R.
- *   SGP4's full secular rate (with J2^2 and J4) differs from this by about 0.1 %, a node
- *   drift of about 0.4 deg per year.
+ *   Applications", 4th ed., 2013, section 11.4, from memory).
  * - LTAN: RAAN = right ascension of the apparent Sun at the epoch + 15 deg per hour of
  *   (LTAN - 12 h) (geometry/sun-low-precision.ts, 0.01 deg).
  * - No drag: BSTAR, the mean-motion derivatives and the element numbers are 0.
@@ -31,6 +31,7 @@ import { sunRightAscensionDeg } from './sun-low-precision.js';
 export const SGP4_WGS72_RADIUS_KM = 6378.135;
 export const SGP4_WGS72_MU_KM3_S2 = 398600.8;
 export const SGP4_WGS72_J2 = 0.001082616;
+export const SGP4_WGS72_J4 = -0.00000165597;
 /** sqrt(mu) in Earth radii^1.5 per minute. */
 export const SGP4_WGS72_XKE_PER_MIN = 60 / Math.sqrt((SGP4_WGS72_RADIUS_KM ** 3) / SGP4_WGS72_MU_KM3_S2);
 /** Tropical year, days (IERS conventions, mean value at J2000, from memory). */
@@ -77,16 +78,28 @@ export function sgp4BrouwerMeanMotion(noKozaiRadMin: number, eccentricity: numbe
 }
 
 /**
- * Sun-synchronous inclination for a mean semi-major axis and eccentricity (first-order J2),
- * deg; undefined when no inclination gives the rate (semi-major axis above about 12,350 km).
+ * Sun-synchronous inclination for a mean semi-major axis and eccentricity, deg: the one at
+ * which SGP4's secular node rate is one turn per tropical year; undefined when none is
+ * (semi-major axis above about 12,350 km).
  */
 export function sunSynchronousInclinationDeg(semiMajorAxisKm: number, eccentricity: number): number | undefined {
   const aEr = semiMajorAxisKm / SGP4_WGS72_RADIUS_KM;
   const nRadMin = SGP4_WGS72_XKE_PER_MIN * aEr ** -1.5;
   const pEr = aEr * (1 - eccentricity * eccentricity);
+  const pinvsq = 1 / (pEr * pEr);
   const sunRateRadMin = (2 * Math.PI) / (TROPICAL_YEAR_DAYS * MIN_PER_DAY);
-  const cosI = -sunRateRadMin / (1.5 * nRadMin * SGP4_WGS72_J2 * (1 / pEr) ** 2);
-  return cosI >= -1 ? Math.acos(cosI) / DEG : undefined;
+  // SGP4's secular node rate (Hoots & Roehrich 1980 sec. 6; Vallado et al. 2006 sgp4init):
+  // cos i (-3/2 J2 n / p^2 + temp2 (4 - 19 cos^2 i) / 2 + 2 temp3 (3 - 7 cos^2 i)) = c (A + B c^2)
+  const temp1 = 1.5 * SGP4_WGS72_J2 * pinvsq * nRadMin;
+  const temp2 = 0.5 * temp1 * SGP4_WGS72_J2 * pinvsq;
+  const temp3 = -0.46875 * SGP4_WGS72_J4 * pinvsq * pinvsq * nRadMin;
+  const A = -temp1 + 2 * temp2 + 6 * temp3;
+  const B = -9.5 * temp2 - 14 * temp3;
+  // first-order J2 start (dOmega/dt = -3/2 n J2 (R/p)^2 cos i), then Newton on c (A + B c^2) = rate
+  let c = sunRateRadMin / -temp1;
+  if (!(c >= -1)) return undefined;
+  for (let k = 0; k < 20; k++) c -= (c * (A + B * c * c) - sunRateRadMin) / (A + 3 * B * c * c);
+  return c >= -1 && c <= 1 ? Math.acos(c) / DEG : undefined;
 }
 
 /** RAAN that puts the ascending node at local apparent solar time ltanHours at the epoch, deg 0..360. */
