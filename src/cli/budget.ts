@@ -6,9 +6,7 @@ import { singleBudget, type SingleBudgetRequest } from '../plan/single.js';
 import { renderBudgetTable, renderBudgetJson } from '../report/budget.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
-import { numberFlag, readGeometryOverrides, loadScenarioNoting } from './options.js';
-
-
+import { numberFlag, readGeometryOverrides, loadScenarioNoting, withExamples } from './options.js';
 
 interface Raw {
   spacecraft?: string;
@@ -26,11 +24,11 @@ interface Raw {
 }
 
 export function registerBudget(program: Command, io: CliIo, setExit: SetExit): void {
-  program
+  const cmd = program
     .command('budget')
     .description('one downlink budget, term by term with units and sources, at a given elevation or slant range')
-    .option('--spacecraft <file>', 'spacecraft file; default: the bundled demo fleet')
-    .option('--network <file>', 'ground network file; default: the bundled demo network')
+    .option('--spacecraft <file>', 'spacecraft file (JSON or YAML) (default: the bundled demo fleet)')
+    .option('--network <file>', 'ground network file (JSON or YAML) (default: the bundled demo network)')
     .requiredOption('--spacecraft-id <id>', 'spacecraft whose radio transmits')
     .requiredOption('--station-id <id>', 'receiving station')
     .option('--radio-id <id>', 'radio of the spacecraft (default: its first)')
@@ -41,7 +39,12 @@ export function registerBudget(program: Command, io: CliIo, setExit: SetExit): v
     .option('--extra-loss-db <dB>', 'other losses to include, dB (e.g. a receive feeder loss)')
     .option('--g-over-t-db-k <dB/K>', "replace the computed G/T by this figure, dB/K (a handbook's G/T for the budget's conditions)")
     .addOption(new Option('--format <format>', 'output format').choices(['table', 'json']).default('table'))
-    .action((raw: Raw) => {
+    .option('--no-write', 'accepted for symmetry with the other commands: budget writes no files');
+  withExamples(cmd, [
+    ['passbudget budget --spacecraft-id KESTREL-1 --station-id FRV --elevation 10', 'the demo X-band budget at 10 deg elevation, term by term'],
+    ['passbudget budget --spacecraft-id HERON-2 --station-id MDL --range-km 2000 --format json', 'at a slant range of 2,000 km, as JSON'],
+    ['passbudget budget --spacecraft-id KESTREL-1 --station-id FRV --elevation 5 --atmosphere-db 2 --pointing-loss-db 0.5', "following a handbook budget's atmosphere and pointing figures"],
+  ]).action((raw: Raw) => {
       const demo = demoFiles();
       const scenario = loadScenarioNoting({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile }, io);
       const req: SingleBudgetRequest = { spacecraftId: raw.spacecraftId, stationId: raw.stationId };

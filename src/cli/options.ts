@@ -46,17 +46,23 @@ export interface CommonOptions {
   write: boolean;
 }
 
-export function addCommonOptions(cmd: Command): Command {
-  return cmd
-    .option('--spacecraft <file>', 'spacecraft file (JSON or YAML); default: the bundled demo fleet')
-    .option('--network <file>', 'ground network file (JSON or YAML); default: the bundled demo network')
-    .option('--from <iso>', 'start of the window, ISO 8601 (UTC unless a zone is given)')
-    .option('--days <n>', 'length of the window in days')
-    .option('--step <duration>', 'time step, e.g. 10s, 1m')
-    .option('--out <dir>', 'output folder', 'out')
-    .addOption(new Option('--format <format>', 'terminal output format').choices(['table', 'json', 'csv']).default('table'))
-    .option('--zone <iana>', 'show times and days in this IANA time zone')
-    .option('--no-write', 'print only; write no files under --out');
+export interface CommonOptionSet {
+  /** The formats this command prints (the first is the default); none: no --format flag. */
+  formats: readonly Format[];
+  /** What --step means here and its default, for the help text. */
+  step: string;
+}
+
+export function addCommonOptions(cmd: Command, set: CommonOptionSet): Command {
+  cmd
+    .option('--spacecraft <file>', 'spacecraft file (JSON or YAML) (default: the bundled demo fleet)')
+    .option('--network <file>', 'ground network file (JSON or YAML) (default: the bundled demo network)')
+    .option('--from <iso>', "start of the window, ISO 8601, UTC unless a zone is given (default: the spacecraft file's window, else today 00:00 UTC)")
+    .option('--days <n>', "length of the window in days (default: the spacecraft file's window, else 7)")
+    .option('--step <duration>', set.step)
+    .option('--out <dir>', 'output folder', 'out');
+  if (set.formats.length > 0) cmd.addOption(new Option('--format <format>', 'terminal output format').choices([...set.formats]).default(set.formats[0]));
+  return cmd.option('--zone <iana>', 'show times and days in this IANA time zone (default: UTC)').option('--no-write', 'print only; write no files under --out');
 }
 
 interface RawOptions {
@@ -66,7 +72,7 @@ interface RawOptions {
   days?: string;
   step?: string;
   out: string;
-  format: Format;
+  format?: Format;
   zone?: string;
   write: boolean;
 }
@@ -76,7 +82,7 @@ export function readCommonOptions(raw: RawOptions): CommonOptions {
   const opts: CommonOptions = {
     files: { spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile },
     outDir: raw.out,
-    format: raw.format,
+    format: raw.format ?? 'table',
     write: raw.write,
   };
   if (raw.from !== undefined) {
@@ -155,4 +161,10 @@ export function loadScenarioNoting(files: ScenarioFiles, io: CliIo): Scenario {
   const scenario = loadScenario(files);
   for (const n of scenario.notices) io.err(`${n.level}: ${n.message}\n`);
   return scenario;
+}
+
+/** Appends "Examples:" to a command's --help: [command line, what it does]. */
+export function withExamples(cmd: Command, examples: readonly (readonly [string, string])[]): Command {
+  const lines = examples.map(([line, what]) => `  $ ${line}\n      ${what}`);
+  return cmd.addHelpText('after', `\nExamples:\n${lines.join('\n')}\n`);
 }

@@ -15,7 +15,8 @@ import { renderScheduleCsv, renderScheduleTable, scheduleJson } from '../report/
 import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable } from '../report/recorder.js';
 import { marginRows } from '../plan/margin.js';
 import { countHook, progressLine } from './progress.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, loadScenarioNoting } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, loadScenarioNoting, withExamples } from './options.js';
+import { DEFAULT_LINK_STEP_S } from '../plan/link.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
@@ -23,8 +24,16 @@ import type { SetExit } from './commands.js';
 const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'daily.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg'];
 
 export function registerPlan(program: Command, io: CliIo, setExit: SetExit): void {
-  addCommonOptions(
-    program.command('plan').description('contact windows of every spacecraft over every station, with the data volume of each contact'),
+  withExamples(
+    addCommonOptions(program.command('plan').description('contact windows of every spacecraft over every station, with the data volume of each contact'), {
+      formats: ['table', 'json', 'csv'],
+      step: `link sampling step inside contacts, e.g. 10s, 1m (default: ${DEFAULT_LINK_STEP_S}s)`,
+    }),
+    [
+      ['passbudget plan', 'the bundled demo week: tables here, plan.json, contacts.csv, daily.csv, calendars and report.html under out/'],
+      ['passbudget plan --spacecraft fleet.yaml --network net.yaml --days 1 --no-write', 'one day of your own files, printed only'],
+      ['passbudget plan --schedule --step 10s --out week', 'antennas deconflicted and recorders simulated, 10 s link steps, files under week/'],
+    ],
   )
     .option('--local-days', "daily totals over each station's local days (its IANA zone) instead of UTC days")
     .option('--schedule', 'deconflict antennas (priority x volume), show only the windows taken, simulate the onboard recorders')

@@ -421,9 +421,12 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
   const receiver = s.antenna && s.receiver ? toReceiver(s.antenna, s.receiver, file, path, problems) : undefined;
   const c = s.climate ?? {};
   const feeds = receiver ? toFeeds(s, receiver, file, path, problems) : undefined;
-  if (s.heightM === undefined) notices.push({ level: 'note', message: `${file}: ${path}.heightM: not given; taken as 0 m above the WGS-84 ellipsoid` });
-  if (s.timeZone === undefined) notices.push({ level: 'note', message: `${file}: ${path}.timeZone: not given; local days and times in UTC` });
-  if (receiver === undefined) notices.push({ level: 'note', message: `${file}: ${path}: no antenna and receiver; its windows are found, with no link, volume or margin` });
+  const taken = [
+    ...(s.heightM === undefined ? ['heightM not given: 0 m above the WGS-84 ellipsoid'] : []),
+    ...(s.timeZone === undefined ? ['timeZone not given: local days and times in UTC'] : []),
+    ...(receiver === undefined ? ['no antenna and receiver: windows only, with no link, volume or margin'] : []),
+  ];
+  if (taken.length > 0) notices.push({ level: 'note', message: `${file}: ${path} (${s.id}): ${taken.join('; ')}` });
   return {
     id: s.id,
     name: s.name ?? s.id,

@@ -13,10 +13,20 @@ import { z } from 'zod';
 import { IANAZone } from 'luxon';
 
 const finite = () => z.number({ message: 'must be a number' }).refine(Number.isFinite, { message: 'must be a finite number' });
+// The bounds are checked by refine (our messages) and stated by meta, so that the JSON
+// Schema export (scenario/json-schema.ts) carries them too.
 const range = (min: number, max: number) =>
-  finite().refine((v) => v >= min && v <= max, { message: `is outside ${min}..${max}` });
-const positive = () => finite().refine((v) => v > 0, { message: 'must be > 0' });
-const nonNegative = () => finite().refine((v) => v >= 0, { message: 'must be >= 0' });
+  finite()
+    .refine((v) => v >= min && v <= max, { message: `is outside ${min}..${max}` })
+    .meta({ minimum: min, maximum: max });
+const positive = () =>
+  finite()
+    .refine((v) => v > 0, { message: 'must be > 0' })
+    .meta({ exclusiveMinimum: 0 });
+const nonNegative = () =>
+  finite()
+    .refine((v) => v >= 0, { message: 'must be >= 0' })
+    .meta({ minimum: 0 });
 const id = () =>
   z
     .string({ message: 'must be a string' })
