@@ -5,10 +5,17 @@ import { runPlanParallel } from '../plan/parallel.js';
 import { renderPlanTable, renderPlanJson, renderPlanCsv } from '../report/plan.js';
 import { writeOutputs } from '../report/write.js';
 import { allStationsDaily, dailyTotals, spacecraftTotals, type DayMode } from '../plan/daily.js';
-import { highestVolumeContacts, seriesForContacts } from '../plan/series.js';
+import { highestVolumeContacts, passesThatMatter, seriesForContacts } from '../plan/series.js';
+import { passWarnings } from '../plan/pass-warnings.js';
+import { packageVersion } from '../scenario/paths.js';
+import type { PlanResult } from '../plan/types.js';
+import type { Scenario, Span } from '../scenario/types.js';
+import type { PassView } from '../report/html/pass-views.js';
+import type { Provenance } from '../report/html/provenance.js';
 import { allStationsDayRecord, dailyRecord, renderDailyCsv, renderDailyTable, spacecraftTotalRecord } from '../report/daily.js';
 import { renderCalendars } from '../report/calendar.js';
 import { renderReportHtml } from '../report/html/index.js';
+import { SERIES_SPACECRAFT_LIMIT } from '../report/html/bounds.js';
 import { scheduleContacts, scheduledPlan } from '../plan/schedule.js';
 import { simulateRecorders } from '../plan/recorder.js';
 import { renderScheduleCsv, renderScheduleTable, scheduleJson } from '../report/schedule.js';
@@ -22,6 +29,27 @@ import type { SetExit } from './commands.js';
 
 /** Fixed names plan writes (checked before the work: none may be a folder). */
 const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'daily.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg'];
+
+/** The passes that matter, sampled with their warnings, for the report. */
+function passViewsFor(scenario: Scenario, span: Span, plan: PlanResult): PassView[] {
+  const chosen = passesThatMatter(plan);
+  const series = seriesForContacts(scenario, span, chosen.map((c) => c.contact));
+  return chosen.flatMap(({ contact, why }) => {
+    const s = series.find((x) => x.stationId === contact.stationId && x.spacecraftId === contact.spacecraftId && x.aosMs === contact.aosMs);
+    const st = scenario.stations.find((x) => x.id === contact.stationId);
+    return s && st ? [{ contact, why, series: s, mask: st.mask, warnings: passWarnings(s, st) }] : [];
+  });
+}
+
+/** Input files, element sets (the one nearest the span start per spacecraft), version and options. */
+function provenanceFor(scenario: Scenario, span: Span, plan: PlanResult, options: [string, string][]): Provenance {
+  const elementSets = scenario.spacecraft.flatMap((sc) => {
+    if (sc.orbit.kind !== 'elements' || sc.orbit.sets.length === 0) return [];
+    const nearest = sc.orbit.sets.reduce((b, x) => (Math.abs(x.epochMs - span.startMs) < Math.abs(b.epochMs - span.startMs) ? x : b));
+    return [{ spacecraftId: sc.id, catalogNumber: nearest.catalogNumber, epochMs: nearest.epochMs }];
+  });
+  return { toolVersion: packageVersion(), inputs: scenario.inputFiles, elementSets, options, spanStartMs: plan.span.startMs, spanEndMs: plan.span.endMs };
+}
 
 export function registerPlan(program: Command, io: CliIo, setExit: SetExit): void {
   withExamples(
@@ -94,7 +122,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
               dayMode,
               daily,
               spacecraftTotals: totals,
-              series: seriesForContacts(scenario, span, highestVolumeContacts(plan)),
+              series: seriesForContacts(scenario, span, highestVolumeContacts(plan).slice(0, SERIES_SPACECRAFT_LIMIT)),
               margins: marginRows(scenario, unscheduled).map((m) => ({
                 station: m.station,
                 spacecraft: m.spacecraft,
@@ -104,6 +132,17 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
                 notVisible: m.result === 'not visible',
               })),
               ...(recorders ? { recorderSvg: renderRecorderSvg(recorders) } : {}),
+              passViews: passViewsFor(scenario, span, plan),
+              losses: [
+                ...(schedule ? schedule.spacecraft.map((l) => ({ spacecraftId: l.spacecraftId, offeredBits: l.offeredBits, lostBits: l.lostBits, cause: 'the antenna schedule' })) : []),
+                ...(recorders ? recorders.tracks.map((t) => ({ spacecraftId: t.spacecraftId, offeredBits: t.generatedBits, lostBits: t.lostBits, cause: 'a full recorder' })) : []),
+              ],
+              provenance: provenanceFor(scenario, span, plan, [
+                ['link step', `${plan.linkStepS} s`],
+                ['availability', `${plan.availabilityPercent} %`],
+                ['days', dayMode.kind === 'utc' ? 'UTC' : "each station's local days"],
+                ['antenna schedule', schedule ? (oneStation ? 'on, one station at a time' : 'on') : 'off'],
+              ]),
             }),
           },
         ]);

@@ -121,7 +121,7 @@ export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> 
     availability_percent: plan.availabilityPercent,
     link_step_s: plan.linkStepS,
     spacecraft: plan.spacecraft,
-    stations: plan.stations,
+    stations: plan.stations.map((st) => ({ id: st.id, name: st.name, time_zone: st.timeZone })),
     contacts: plan.contacts.map((c) => ({
       ...contactRecord(c),
       ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),

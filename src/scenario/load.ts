@@ -10,6 +10,8 @@
  * 90 deg elevation; climate values left out are read from the ITU-R maps for
  * the site later (src/link/climate/station.ts); availability 99.5 %.
  */
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import { DateTime } from 'luxon';
 import { ScenarioError, appendAll, type Problem } from '../errors.js';
 import { readText, parseStructured, resolveBeside, zodProblems } from './read.js';
@@ -31,7 +33,7 @@ import { MIN_PERIGEE_HEIGHT_KM, meanMotionAndEccentricity, perigeeProblem } from
 import { sgp4MeanElements, sunSynchronousInclinationDeg } from '../geometry/mean-elements.js';
 import { WGS84_EQUATORIAL_RADIUS_KM } from '../geometry/earth.js';
 import { toFeeds } from './feeds.js';
-import type { ElementSet, Notice, OrbitSource, Radio, Scenario, Spacecraft, Station, Span, Mask, Receiver, TxAntenna } from './types.js';
+import type { ElementSet, InputFile, Notice, OrbitSource, Radio, Scenario, Spacecraft, Station, Span, Mask, Receiver, TxAntenna } from './types.js';
 
 export interface ScenarioFiles {
   spacecraftFile: string;
@@ -43,7 +45,8 @@ export const DEFAULT_AVAILABILITY_PERCENT = 99.5;
 export function loadScenario(files: ScenarioFiles): Scenario {
   const problems: Problem[] = [];
   const notices: Notice[] = [];
-  const fleet = loadFleet(files.spacecraftFile, problems, notices);
+  const referenced: string[] = [];
+  const fleet = loadFleet(files.spacecraftFile, problems, notices, referenced);
   const stations = loadNetwork(files.networkFile, problems, notices);
   if (problems.length > 0 || fleet === undefined || stations === undefined) throw new ScenarioError(problems);
   return {
@@ -52,6 +55,7 @@ export function loadScenario(files: ScenarioFiles): Scenario {
     ...(fleet.span ? { span: fleet.span } : {}),
     link: fleet.link,
     sources: { spacecraftFile: files.spacecraftFile, networkFile: files.networkFile },
+    inputFiles: [files.spacecraftFile, files.networkFile, ...new Set(referenced)].map(fingerprint),
     notices,
   };
 }
@@ -115,7 +119,7 @@ function checkValidPartsOfNetwork(data: unknown, file: string, problems: Problem
   });
 }
 
-function loadFleet(file: string, problems: Problem[], notices: Notice[]): Pick<Scenario, 'spacecraft' | 'span' | 'link'> | undefined {
+function loadFleet(file: string, problems: Problem[], notices: Notice[], referenced: string[]): Pick<Scenario, 'spacecraft' | 'span' | 'link'> | undefined {
   const read = readData(file, problems);
   if (read === undefined) return undefined;
   const { data, text } = read;
@@ -128,7 +132,7 @@ function loadFleet(file: string, problems: Problem[], notices: Notice[]): Pick<S
   const doc = parsed.data;
   const before = problems.length;
   checkUnique(doc.spacecraft.map((s) => s.id), file, 'spacecraft', problems);
-  const spacecraft = doc.spacecraft.map((entry, i) => toSpacecraft(entry, file, `spacecraft[${i}]`, problems, notices));
+  const spacecraft = doc.spacecraft.map((entry, i) => toSpacecraft(entry, file, `spacecraft[${i}]`, problems, notices, referenced));
   let span: Span | undefined;
   if (doc.window) {
     const from = parseInstant(doc.window.from);
@@ -148,6 +152,12 @@ function loadFleet(file: string, problems: Problem[], notices: Notice[]): Pick<S
       minDataElevationDeg: doc.link?.minDataElevationDeg ?? -5,
     },
   };
+}
+
+/** An input file's SHA-256 and size, for the report's provenance (read again: the bytes as they are on disk). */
+function fingerprint(path: string): InputFile {
+  const bytes = readFileSync(path);
+  return { path, sha256: createHash('sha256').update(bytes).digest('hex'), bytes: bytes.length };
 }
 
 /**
@@ -179,8 +189,8 @@ function checkUnique(ids: string[], file: string, path: string, problems: Proble
   });
 }
 
-function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, problems: Problem[], notices: Notice[] = []): Spacecraft {
-  const orbit = toOrbit(entry.orbit, file, `${path}.orbit`, problems, notices);
+function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, problems: Problem[], notices: Notice[] = [], referenced: string[] = []): Spacecraft {
+  const orbit = toOrbit(entry.orbit, file, `${path}.orbit`, problems, notices, referenced);
   const radios = (entry.radios ?? []).map((r, j) => toRadio(r, file, `${path}.radios[${j}]`, problems));
   checkUnique((entry.radios ?? []).map((r) => r.id), file, `${path}.radios`, problems);
   if (entry.dataRadio !== undefined) {
@@ -208,7 +218,7 @@ function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, proble
   };
 }
 
-function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, problems: Problem[], notices: Notice[] = []): OrbitSource {
+function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, problems: Problem[], notices: Notice[] = [], referenced: string[] = []): OrbitSource {
   if (orbit.moon) return { kind: 'moon' };
   if (orbit.sky) return { kind: 'fixedSky', ...orbit.sky };
   let sets: ElementSet[] = [];
@@ -227,6 +237,7 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
   if (orbit.tle !== undefined) sets = collect(parseTleText(orbit.tle, file, `${path}.tle`), problems);
   else if (orbit.tleFile !== undefined) {
     const target = resolveBeside(file, orbit.tleFile);
+    referenced.push(target);
     const text = readText(target, '');
     if (!text.ok) appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.tleFile)` })));
     else sets = collect(named(parseTleText(text.value, target, ''), `${file}: ${path}.tleFile`), problems);
@@ -235,6 +246,7 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
     sets = collect(parseOmm(text, file, `${path}.omm`, typeof orbit.omm === 'string' ? undefined : 'json'), problems, notices);
   } else if (orbit.ommFile !== undefined) {
     const target = resolveBeside(file, orbit.ommFile);
+    referenced.push(target);
     const text = readText(target, '');
     if (!text.ok) appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.ommFile)` })));
     else sets = collect(named(parseOmm(text.value, target, ''), `${file}: ${path}.ommFile`), problems, notices);

@@ -221,8 +221,16 @@ export interface Scenario {
   span?: Span;
   link: LinkSettings;
   sources: { spacecraftFile: string; networkFile: string };
+  /** Every file read (spacecraft file, network file, element-set files they name), for provenance. */
+  inputFiles: InputFile[];
   /** Defaults taken and inputs accepted with a caveat, for the CLI to print before the work. */
   notices: Notice[];
+}
+
+export interface InputFile {
+  path: string;
+  sha256: string;
+  bytes: number;
 }
 
 /** Something the user should know about the files that is not an error. */
