@@ -38,6 +38,8 @@ function counts(scenario: Scenario): { spacecraft: number; element_sets: number;
   };
 }
 
+const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
 const problemJson = (p: Problem) => ({ file: p.file, field: p.path, message: p.message });
 
 export function registerCheck(program: Command, io: CliIo, setExit: SetExit): void {
@@ -76,8 +78,8 @@ export function registerCheck(program: Command, io: CliIo, setExit: SetExit): vo
     for (const w of r.warnings) io.err(`warning: ${w}\n`);
     const c = counts(scenario);
     io.out(
-      `ok: ${files.spacecraftFile}: ${c.spacecraft} spacecraft, ${c.element_sets} element sets, ${c.radios} radios\n` +
-        `ok: ${files.networkFile}: ${c.stations} stations\n\n` +
+      `ok: ${files.spacecraftFile}: ${c.spacecraft} spacecraft, ${plural(c.element_sets, 'element set')}, ${plural(c.radios, 'radio')}\n` +
+        `ok: ${files.networkFile}: ${plural(c.stations, 'station')}\n\n` +
         r.climateTable,
     );
     setExit(0);

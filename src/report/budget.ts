@@ -3,9 +3,9 @@ import type { SingleBudget } from '../plan/single.js';
 import { fixed, renderTable } from './table.js';
 import { climateHeading, renderClimateInputs } from './climate.js';
 
-/** A number rounded to `decimals` places, without a negative zero. */
-function atPrecision(v: number, decimals: number): number {
-  const r = Number(v.toFixed(decimals));
+/** A number at ten significant digits, without a negative zero. */
+function significant(v: number): number {
+  const r = Number(v.toPrecision(10));
   return r === 0 ? 0 : r;
 }
 
@@ -30,9 +30,9 @@ export function renderBudgetJson(b: SingleBudget): string {
     radio: b.radioId,
     elevation_deg: Number(b.look.elevationDeg.toFixed(6)),
     range_km: Number(b.look.rangeKm.toFixed(6)),
-    // at the table's precision plus two digits: no 44530269.99999999, no -0
-    terms: b.terms.map((t) => ({ name: t.name, value: atPrecision(t.value, decimalsFor(t.unit) + 2), unit: t.unit, source: t.source })),
-    climate: b.climate.inputs.map((i) => ({ field: i.fileField, name: i.label, value: Number(i.value.toPrecision(10)), unit: i.unit, source: i.source })),
+    // ten significant digits: no 44530269.99999999, no -0
+    terms: b.terms.map((t) => ({ name: t.name, value: significant(t.value), unit: t.unit, source: t.source })),
+    climate: b.climate.inputs.map((i) => ({ field: i.fileField, name: i.label, value: significant(i.value), unit: i.unit, source: i.source })),
   };
   return JSON.stringify(doc, null, 2) + '\n';
 }
