@@ -29,7 +29,7 @@ export function shellWords(text: string): string[] {
   return out;
 }
 
-/** Every example: the command after the prompt and the indented lines under it, up to a blank line or the next prompt. */
+/** Every example: the command after the prompt and the indented lines under it, up to the end of the indented block or the next prompt. */
 export function readmeExamples(markdown: string): ReadmeExample[] {
   const lines = markdown.split('\n');
   const out: ReadmeExample[] = [];
@@ -39,7 +39,14 @@ export function readmeExamples(markdown: string): ReadmeExample[] {
     const args = shellWords(l.slice(4 + PROMPT.length));
     const shown: string[] = [];
     let j = i + 1;
-    for (; j < lines.length && lines[j]!.startsWith('    ') && !lines[j]!.startsWith(`    ${PROMPT}`); j++) shown.push(lines[j]!.slice(4).trimEnd());
+    // the block runs on through blank lines followed by more indented lines
+    const inBlock = (k: number): boolean => {
+      const t = lines[k];
+      if (t === undefined || t.startsWith(`    ${PROMPT}`)) return false;
+      if (t.startsWith('    ')) return true;
+      return t.trim() === '' && (lines[k + 1] ?? '').startsWith('    ') && !(lines[k + 1] ?? '').startsWith(`    ${PROMPT}`);
+    };
+    for (; j < lines.length && inBlock(j); j++) shown.push(lines[j]!.slice(4).trimEnd());
     out.push({ line: i + 1, args, shown });
     i = j - 1;
   }
@@ -78,6 +85,11 @@ describe('README examples', () => {
   it('the README has examples for every command', () => {
     const commands = new Set(examples.map((e) => e.args[0]));
     for (const c of ['plan', 'trace', 'margin', 'budget', 'size', 'check', 'climate', 'schema', 'codes']) expect(commands, c).toContain(c);
+  });
+
+  it('the extractor keeps blank lines inside a block', () => {
+    const ex = readmeExamples(['text', '', `    ${PROMPT}plan`, '    a', '', '    b', '', 'text'].join('\n'));
+    expect(ex).toEqual([{ line: 3, args: ['plan'], shown: ['a', '', 'b'] }]);
   });
 
   it('the matcher itself: in order, "..." skips, a wrong line fails', () => {

@@ -61,7 +61,8 @@ function attention(input: ReportInput): [string, string][] {
   const out: [string, string][] = [];
   const hasLink = input.plan.contacts.some((c) => c.link);
   for (const t of input.spacecraftTotals) {
-    if (t.contactCount === 0) out.push([t.spacecraftId, 'no contact in the span']);
+    const lostToSchedule = (input.losses ?? []).some((l) => l.spacecraftId === t.spacecraftId && l.cause === 'the antenna schedule' && l.lostBits > 0);
+    if (t.contactCount === 0) out.push([t.spacecraftId, lostToSchedule ? 'no window taken: every one lost to the antenna schedule' : 'no contact in the span']);
     else if (hasLink && t.stationSumVolumeBits === 0) out.push([t.spacecraftId, `${t.contactCount} contacts but no data (no radio heard, or the link never closes)`]);
   }
   for (const l of input.losses ?? []) {
