@@ -6,7 +6,7 @@ import { singleBudget, type SingleBudgetRequest } from '../plan/single.js';
 import { renderBudgetTable, renderBudgetJson } from '../report/budget.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
-import { numberFlag, readGeometryOverrides, loadScenarioNoting, withExamples } from './options.js';
+import { AVAILABILITY_HELP, availabilityFlag, numberFlag, readGeometryOverrides, withAvailability, loadScenarioNoting, withExamples } from './options.js';
 
 interface Raw {
   spacecraft?: string;
@@ -20,6 +20,7 @@ interface Raw {
   pointingLossDb?: string;
   extraLossDb?: string;
   gOverTDbK?: string;
+  availability?: string;
   format: 'table' | 'json';
 }
 
@@ -37,6 +38,7 @@ export function registerBudget(program: Command, io: CliIo, setExit: SetExit): v
     .option('--atmosphere-db <dB>', 'replace the ITU-R atmosphere by this total, dB (to follow a handbook budget); the sky noise follows from it (ITU-R P.618 sec. 3)')
     .option('--pointing-loss-db <dB>', 'replace the computed pointing loss, dB')
     .option('--extra-loss-db <dB>', 'other losses to include, dB (e.g. a receive feeder loss)')
+    .option('--availability <percent>', AVAILABILITY_HELP)
     .option('--g-over-t-db-k <dB/K>', "replace the computed G/T by this figure, dB/K (a handbook's G/T for the budget's conditions)")
     .addOption(new Option('--format <format>', 'output format').choices(['table', 'json']).default('table'))
     .option('--no-write', 'accepted for symmetry with the other commands: budget writes no files');
@@ -46,7 +48,8 @@ export function registerBudget(program: Command, io: CliIo, setExit: SetExit): v
     ['passbudget budget --spacecraft-id KESTREL-1 --station-id FRV --elevation 5 --atmosphere-db 2 --pointing-loss-db 0.5', "following a handbook budget's atmosphere and pointing figures"],
   ]).action((raw: Raw) => {
       const demo = demoFiles();
-      const scenario = loadScenarioNoting({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile }, io);
+      const availability = availabilityFlag(raw.availability);
+      const scenario = withAvailability(loadScenarioNoting({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile }, io), availability);
       const req: SingleBudgetRequest = { spacecraftId: raw.spacecraftId, stationId: raw.stationId };
       if (raw.radioId !== undefined) req.radioId = raw.radioId;
       Object.assign(req, readGeometryOverrides(raw));

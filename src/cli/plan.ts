@@ -22,7 +22,7 @@ import { renderScheduleCsv, renderScheduleTable, scheduleJson } from '../report/
 import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable } from '../report/recorder.js';
 import { marginRows } from '../plan/margin.js';
 import { countHook, progressLine } from './progress.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, loadScenarioNoting, withExamples } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability, loadScenarioNoting, withExamples } from './options.js';
 import { DEFAULT_LINK_STEP_S } from '../plan/link.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
@@ -70,7 +70,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       const opts = readCommonOptions(raw);
       prepareOutput(opts, io, PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
-      const scenario = loadScenarioNoting(opts.files, io);
+      const scenario = withAvailability(loadScenarioNoting(opts.files, io), opts.availabilityPercent);
       const span = spanFor(opts, scenario, io);
       assertPreflight(scenario, span); // file and field of a model-range problem, before any work
       const progress = progressLine(io, 'plan');

@@ -11,7 +11,7 @@ import { UsageError } from '../errors.js';
 import { assertPreflight } from '../plan/preflight.js';
 import { DEFAULT_TRACE_STEP_S, prepareTrace, traceRows, traceSelectionProblems, type TraceOptions } from '../plan/trace.js';
 import { streamTraceCsv, traceTimeDecimals, writeTraceFile } from '../report/trace.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, loadScenarioNoting, withExamples } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability, loadScenarioNoting, withExamples } from './options.js';
 import { processIo, type CliIo } from './io.js';
 import { progressLine } from './progress.js';
 import type { SetExit } from './commands.js';
@@ -73,7 +73,7 @@ export function registerTrace(program: Command, io: CliIo, setExit: SetExit): vo
     const toStdout = !opts.write || output === '-';
     const file = output !== undefined && output !== '-' ? output : join(opts.outDir, 'trace.csv');
     if (!toStdout) prepareOutput({ ...opts, outDir: dirname(file) }, io, [basename(file)]);
-    const scenario = loadScenarioNoting(opts.files, io);
+    const scenario = withAvailability(loadScenarioNoting(opts.files, io), opts.availabilityPercent);
     const span = spanFor(opts, scenario, io);
     assertPreflight(scenario, span); // file and field of a model-range problem, before any work
     const traceOpts: TraceOptions = { stepS: opts.stepS ?? DEFAULT_TRACE_STEP_S, inContactOnly: raw.inContact === true };

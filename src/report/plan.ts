@@ -39,6 +39,7 @@ function mostTimeIn(timeInModcodS: Record<string, number>): string {
 export function renderPlanTable(plan: PlanResult, zone?: string): string {
   const parts: string[] = [];
   const hasLink = plan.contacts.some((c) => c.link !== undefined);
+  const hasExpected = plan.contacts.some((c) => c.link?.expectedVolumeBits !== undefined);
   parts.push(
     `Contact plan ${isoUtc(plan.span.startMs, 0)} .. ${isoUtc(plan.span.endMs, 0)}` +
       (hasLink ? `, link at ${plan.availabilityPercent} % availability, sampled every ${plan.linkStepS} s` : ''),
@@ -58,6 +59,7 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
         { header: zone ? `data start (${zone})` : 'data start (UTC)' },
         { header: 'data end' },
         { header: 'volume', align: 'right' },
+        ...(hasExpected ? [{ header: 'expected', align: 'right' } as const] : []),
         { header: 'closure margin dB', align: 'right' },
         { header: 'most time in' },
       );
@@ -72,6 +74,7 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
           l ? timeText(l.dataStartMs, zone) : '-',
           l ? sameDayText(l.dataEndMs, ref, zone) : '-',
           l ? formatBits(l.volumeBits) : '-',
+          ...(hasExpected ? [l?.expectedVolumeBits !== undefined ? formatBits(l.expectedVolumeBits) : '-'] : []),
           l ? fixed(l.worstMarginDb, 1) : '-',
           l ? mostTimeIn(l.timeInModcodS) : '-',
         );
@@ -85,27 +88,36 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
       return r;
     });
     parts.push(indent(renderTable(cols, body)));
-    parts.push(`  ${summaryLine(rows, hasLink)}`);
+    parts.push(`  ${summaryLine(rows, hasLink, hasExpected)}`);
   }
   const clipped = plan.contacts.some((c) => c.aosClipped || c.losClipped);
   parts.push('');
-  parts.push(`All stations (station sum): ${summaryLine(plan.contacts, hasLink)}`);
+  parts.push(`All stations (station sum): ${summaryLine(plan.contacts, hasLink, hasExpected)}`);
   const once = uniqueVolumes(
     plan.spacecraft.map((s) => s.id),
     plan.contacts,
   );
   parts.push(
     `Counted once per spacecraft radio (best station at each instant, union of windows): contact time ${formatDuration(once.reduce((s, u) => s + u.contactTimeS, 0))}` +
-      (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : ''),
+      (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : '') +
+      (hasExpected ? `, expected ${formatBits(once.reduce((s, u) => s + u.expectedVolumeBits, 0))}` : ''),
   );
+  if (hasExpected) {
+    parts.push(
+      `"volume": at ${plan.availabilityPercent} % availability (the atmosphere exceeded ${Number((100 - plan.availabilityPercent).toPrecision(12))} % of an average year); ` +
+        '"expected": the mean over an average year\'s attenuation statistics (README, "Expected volume").',
+    );
+  }
   if (clipped) parts.push('"<" / ">": window cut by the start / end of the span.');
   return parts.join('\n') + '\n';
 }
 
-function summaryLine(rows: Contact[], hasLink: boolean): string {
+function summaryLine(rows: Contact[], hasLink: boolean, hasExpected: boolean): string {
   const totalS = rows.reduce((s, c) => s + c.durationS, 0);
   let line = `${rows.length} window${rows.length === 1 ? '' : 's'}, contact time ${formatDuration(totalS)}`;
-  if (hasLink && rows.some((c) => c.link !== undefined)) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
+  const linked = hasLink && rows.some((c) => c.link !== undefined);
+  if (linked) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
+  if (linked && hasExpected) line += `, expected ${formatBits(rows.reduce((s, c) => s + (c.link?.expectedVolumeBits ?? c.link?.volumeBits ?? 0), 0))}`;
   return line;
 }
 
@@ -133,13 +145,30 @@ function modcodCell(timeInModcodS: Record<string, number>): string {
  * closure margin, time per MODCOD), then the geometry as a trailing group. Link columns are
  * empty (CSV) or absent (JSON) for a contact without a link.
  */
-export const CONTACT_COLUMNS: readonly { key: string; link?: true; value: (c: Contact) => Cell }[] = [
+export const CONTACT_COLUMNS: readonly {
+  key: string;
+  /** Needs the contact's link. */
+  link?: true;
+  /** Present only when this holds (JSON: the key left out; CSV: the column when any contact has it). */
+  when?: (c: Contact) => boolean;
+  /** In plan.json only. */
+  jsonOnly?: true;
+  value: (c: Contact) => Cell;
+}[] = [
   { key: 'station', value: (c) => c.stationId },
   { key: 'spacecraft', value: (c) => c.spacecraftId },
   { key: 'radio', link: true, value: (c) => c.link!.radioId },
   { key: 'data_start_utc', link: true, value: (c) => isoUtc(c.link!.dataStartMs, 3) },
   { key: 'data_end_utc', link: true, value: (c) => isoUtc(c.link!.dataEndMs, 3) },
   { key: 'volume_bits', link: true, value: (c) => Math.round(c.link!.volumeBits) },
+  { key: 'expected_volume_bits', link: true, when: (c) => c.link?.expectedVolumeBits !== undefined, value: (c) => c.link!.expectedVolumeBits! },
+  {
+    key: 'expected_volume_bound_bits',
+    link: true,
+    jsonOnly: true,
+    when: (c) => c.link?.expectedVolumeBoundBits !== undefined,
+    value: (c) => Math.ceil(c.link!.expectedVolumeBoundBits!),
+  },
   { key: 'closure_margin_db', link: true, value: (c) => round(c.link!.worstMarginDb, 2) },
   { key: 'time_in_modcod_s', link: true, value: (c) => modcodCell(c.link!.timeInModcodS) },
   { key: 'closed_s', link: true, value: (c) => round(c.link!.closedS, 1) },
@@ -158,9 +187,12 @@ export const CONTACT_COLUMNS: readonly { key: string; link?: true; value: (c: Co
 ];
 
 /** One contact as a plain record in CONTACT_COLUMNS order, fixed rounding (JSON and CSV share it). */
-export function contactRecord(c: Contact): Record<string, Cell> {
+export function contactRecord(c: Contact, forJson = false): Record<string, Cell> {
   const rec: Record<string, Cell> = {};
-  for (const col of CONTACT_COLUMNS) if (!col.link || c.link) rec[col.key] = col.value(c);
+  for (const col of CONTACT_COLUMNS) {
+    if ((col.link && !c.link) || (col.when && !col.when(c)) || (col.jsonOnly && !forJson)) continue;
+    rec[col.key] = col.value(c);
+  }
   return rec;
 }
 
@@ -172,7 +204,7 @@ export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> 
     spacecraft: plan.spacecraft,
     stations: plan.stations.map((st) => ({ id: st.id, name: st.name, time_zone: st.timeZone })),
     contacts: plan.contacts.map((c) => ({
-      ...contactRecord(c),
+      ...contactRecord(c, true),
       // in JSON, the time per MODCOD as an object, in its column's place
       ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
       ...(c.otherLinks
@@ -180,7 +212,8 @@ export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> 
             other_radios: c.otherLinks.map((l) => ({
               radio: l.radioId,
               volume_bits: l.volumeBits,
-              worst_margin_db: round(l.worstMarginDb, 2),
+              ...(l.expectedVolumeBits !== undefined ? { expected_volume_bits: l.expectedVolumeBits } : {}),
+              closure_margin_db: round(l.worstMarginDb, 2),
               peak_rate_bps: Math.round(l.peakRateBps),
             })),
           }
@@ -200,6 +233,6 @@ function roundRecord(r: Record<string, number>, d: number): Record<string, numbe
 
 export function renderPlanCsv(plan: PlanResult): string {
   const hasLink = plan.contacts.some((c) => c.link !== undefined);
-  const columns = CONTACT_COLUMNS.filter((col) => hasLink || !col.link).map((col) => col.key);
-  return stringify(plan.contacts.map(contactRecord), { header: true, columns, cast: { boolean: (v) => (v ? 'true' : 'false') } });
+  const columns = CONTACT_COLUMNS.filter((col) => !col.jsonOnly && (hasLink || !col.link) && (!col.when || plan.contacts.some(col.when))).map((col) => col.key);
+  return stringify(plan.contacts.map((c) => contactRecord(c)), { header: true, columns, cast: { boolean: (v) => (v ? 'true' : 'false') } });
 }
