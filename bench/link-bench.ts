@@ -57,6 +57,8 @@ export function syntheticScenario(spacecraft: number, stations: number, span: Sp
     span,
     link: { availabilityPercent: 99.5, acquisitionTimeS: 10, minDataElevationDeg: 0 },
     sources: { spacecraftFile: '(synthetic)', networkFile: '(synthetic)' },
+    inputFiles: [],
+    notices: [],
   };
 }
 

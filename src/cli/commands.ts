@@ -8,6 +8,7 @@ import { registerMargin } from './margin.js';
 import { registerBudget } from './budget.js';
 import { registerSize } from './size.js';
 import { registerClimate } from './climate.js';
+import { registerReference } from './reference.js';
 
 export type SetExit = (code: number) => void;
 
@@ -19,4 +20,5 @@ export function registerCommands(program: Command, io: CliIo, setExit: SetExit):
   registerBudget(program, io, setExit);
   registerSize(program, io, setExit);
   registerClimate(program, io, setExit);
+  registerReference(program, io, setExit);
 }

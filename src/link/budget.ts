@@ -107,6 +107,7 @@ export function prepareLink(
 
   // --- receive antenna gain and beamwidth
   const rx = station.receiver;
+  if (!rx) throw new Error(`prepareLink: station ${station.id} has no receiver (callers check radioHeardAt first)`);
   let rxGainDbi: number;
   let rxBeamwidthDeg = NaN;
   let antennaNoiseTempK = 0;
@@ -394,7 +395,7 @@ export function budgetTerms(p: PreparedLink, look: Look, bodyTempK = 0): BudgetT
   add('Transmit power', p.txPowerDbw, 'dBW', 'radio');
   add('Transmit losses', -p.txLossDb, 'dB', 'radio');
   if (p.txAntennaKind === 'pattern' && p.txNadirPointing) {
-    add('Off-boresight angle (nadir pointing)', s.offBoresightDeg, 'deg', 'law of cosines, antenna.ts');
+    add('Off-boresight angle (nadir pointing)', s.offBoresightDeg, 'deg', 'spherical-Earth geometry (law of cosines)');
   }
   add(
     'Transmit antenna gain',
@@ -404,24 +405,24 @@ export function budgetTerms(p: PreparedLink, look: Look, bodyTempK = 0): BudgetT
   );
   add('EIRP', s.eirpDbw, 'dBW', 'P_tx - L_tx + G_tx');
   add('Free-space loss', -s.freeSpaceLossDb, 'dB', 'ITU-R P.525 sec. 2.2');
-  add('Gaseous absorption', -s.gasDb, 'dB', 'src/link/atmosphere (ITU-R P.676)');
-  add('Rain attenuation', -s.rainDb, 'dB', 'src/link/atmosphere (ITU-R P.618 sec. 2.2)');
-  add('Cloud attenuation', -s.cloudDb, 'dB', 'src/link/atmosphere (ITU-R P.840)');
-  add('Scintillation', -s.scintillationDb, 'dB', 'src/link/atmosphere (ITU-R P.618 sec. 2.4)');
+  add('Gaseous absorption', -s.gasDb, 'dB', 'ITU-R P.676-13 Annex 2 (surface conditions)');
+  add('Rain attenuation', -s.rainDb, 'dB', 'ITU-R P.618-14 sec. 2.2.1.1');
+  add('Cloud attenuation', -s.cloudDb, 'dB', 'ITU-R P.840-9');
+  add('Scintillation', -s.scintillationDb, 'dB', 'ITU-R P.618-14 sec. 2.4.1');
   add('Atmosphere total', -s.atmosphereDb, 'dB', 'ITU-R P.618 sec. 2.5 combination');
   add('Pointing loss', -s.pointingLossDb, 'dB', `12 (${p.pointingErrorDeg} / ${p.rxBeamwidthDeg.toPrecision(3)} deg)^2, common practice`);
-  add('Polarisation mismatch', -s.polarizationLossDb, 'dB', `${p.txPolarization} -> ${p.rxPolarization}, polarization.ts`);
+  add('Polarisation mismatch', -s.polarizationLossDb, 'dB', `${p.txPolarization} -> ${p.rxPolarization}, ideal antennas; 25 dB cross-polar isolation (common practice)`);
   if (p.extraLossDb !== 0) add('Other losses', -p.extraLossDb, 'dB', 'given by the user');
   add('Power flux density at the station (free space)', fluxDensityDbwM2(s.eirpDbw, look.rangeKm), 'dBW/m2', 'EIRP / (4 pi d^2)');
   add('Receive antenna gain', s.rxGainDbi, 'dBi', p.receiverKind === 'chain' ? 'eta (pi D / lambda)^2 or stated' : p.referenceNoiseNote);
   add('Sky noise temperature', s.skyNoiseTempK, 'K', 'ITU-R P.618 sec. 3');
-  if (bodyTempK > 0) add('Moon in the beam (disc centred, through the atmosphere)', s.bodyNoiseTempK, 'K', `${p.moonBrightnessK} K disc in a Gaussian main lobe, body-noise.ts`);
+  if (bodyTempK > 0) add('Moon in the beam (disc centred, through the atmosphere)', s.bodyNoiseTempK, 'K', `${p.moonBrightnessK} K lunar disc (Krotikov & Troitskii 1964) in a Gaussian main lobe`);
   if (p.receiverKind === 'chain') {
     add('Feed loss', -p.feedLossDb, 'dB', 'station');
     add('System noise temperature (LNA input)', s.systemNoiseTempK, 'K', '(Tsky + Tant)/Lf + Tf (1 - 1/Lf) + Trx');
   } else {
     add('Stated G/T', p.statedGOverTDbK, 'dB/K', `station, clear sky at ${p.statedAtElevationDeg} deg`);
-    add('System noise temperature', s.systemNoiseTempK, 'K', 'Tsys_ref + (Tsky - Tsky_ref), noise.ts');
+    add('System noise temperature', s.systemNoiseTempK, 'K', 'Tsys_ref + (Tsky - Tsky_ref), sky noise by ITU-R P.618-14 sec. 3');
   }
   add(
     'Received carrier power',
@@ -429,7 +430,7 @@ export function budgetTerms(p: PreparedLink, look: Look, bodyTempK = 0): BudgetT
     'dBW',
     'EIRP - losses + G_rx (Friis)',
   );
-  add('G/T', s.gOverTDbK, 'dB/K', Number.isNaN(p.gOverTOverrideDbK) ? 'noise.ts' : 'given by the user (replaces the computed G/T)');
+  add('G/T', s.gOverTDbK, 'dB/K', Number.isNaN(p.gOverTOverrideDbK) ? 'G_rx - 10 log10 Tsys' : 'given by the user (replaces the computed G/T)');
   add("Boltzmann's constant", BOLTZMANN_EXACT_DBW_PER_K_HZ, 'dBW/(K.Hz)', 'BIPM SI 9th ed. (2019), exact k');
   add('C/N0', s.cN0DbHz, 'dB-Hz', 'EIRP - losses + G/T - 10 log10 k');
   if (p.codingKind === 'fixed') {

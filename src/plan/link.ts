@@ -68,6 +68,7 @@ export const linkKey = (spacecraftId: string, stationId: string) => `${spacecraf
 /** Receive dish diameter for scintillation aperture averaging: given, or from the gain. */
 function effectiveDiameterM(station: Station, freqHz: number): { diameterM: number; efficiency: number } {
   const rx = station.receiver;
+  if (!rx) throw new Error(`station ${station.id} has no receiver (callers check radioHeardAt first)`);
   const efficiency = rx.apertureEfficiency ?? 0.6;
   if (rx.dishDiameterM !== undefined) return { diameterM: rx.dishDiameterM, efficiency };
   const gainDbi = rx.gainDbi ?? 40;
@@ -168,7 +169,7 @@ export function prepareRadioAtStationUnnamed(
   const opts: Parameters<typeof prepareLink>[4] = {
     stationGeocentricRadiusKm: Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]),
   };
-  if (station.receiver.kind === 'gt') {
+  if (station.receiver?.kind === 'gt') {
     const { rainRate001MmH: _r, rainHeightKm: _h, cloudLiquidWaterKgM2: _c, ...clear } = input;
     opts.clearSkyAtmosphere = cached(clear, Math.min(minElevationDeg, station.receiver.atElevationDeg));
   }
@@ -232,6 +233,7 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry, opts: Prepa
   const levels = opts.expectedVolume === false ? undefined : new Map<string, ExceedanceLevelsTable>();
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
+    if (!station.receiver) return; // windows only (a notice of the scenario says so)
     for (const sc of scenario.spacecraft) {
       sc.radios.forEach((radio, r) => {
         if (!radioHeardAt(station, radio)) {

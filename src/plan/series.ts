@@ -29,8 +29,14 @@ export interface ContactSeries {
   stepS: number;
   tMs: Float64Array;
   elevationDeg: Float64Array;
+  azimuthDeg: Float64Array;
   rateBps: Float64Array;
   marginDb: Float64Array;
+  /** The MODCOD (adaptive) or code (fixed) in use at each sample, an index into `modcodNames`; -1: none closes. */
+  modcodIndex: Int16Array;
+  modcodNames: readonly string[];
+  /** The receive antenna's 3 dB beamwidth, deg (NaN when unknown). */
+  rxBeamwidthDeg: number;
 }
 
 /** Default number of intervals a charted contact is cut into. */
@@ -60,6 +66,8 @@ export function sampleContact(
   const n = Math.max(0, Math.ceil((contact.losMs - contact.aosMs) / stepMs - 1e-9)) + 1;
   const tMs = new Float64Array(n);
   const elevationDeg = new Float64Array(n);
+  const azimuthDeg = new Float64Array(n);
+  const modcodIndex = new Int16Array(n);
   const rateBps = new Float64Array(n);
   const marginDb = new Float64Array(n);
   const dataStartMs = Math.min(contact.aosMs + acquisitionTimeS * 1000, contact.losMs);
@@ -75,6 +83,8 @@ export function sampleContact(
     evaluateLink(link, look, sample, true, bodyTempK(link, sky, site, state, angles));
     tMs[m] = t;
     elevationDeg[m] = look.elevationDeg;
+    azimuthDeg[m] = look.azimuthDeg;
+    modcodIndex[m] = link.codingKind === 'fixed' ? (sample.rateBps > 0 ? 0 : -1) : sample.modcodIndex;
     rateBps[m] = t >= dataStartMs ? sample.rateBps : 0;
     marginDb[m] = sample.closureMarginDb;
     m++;
@@ -89,9 +99,40 @@ export function sampleContact(
     stepS,
     tMs: tMs.slice(0, m),
     elevationDeg: elevationDeg.slice(0, m),
+    azimuthDeg: azimuthDeg.slice(0, m),
     rateBps: rateBps.slice(0, m),
     marginDb: marginDb.slice(0, m),
+    modcodIndex: modcodIndex.slice(0, m),
+    modcodNames: link.codingKind === 'fixed' ? [link.codingName] : link.modcodTable.map((e) => e.name),
+    rxBeamwidthDeg: link.rxBeamwidthDeg,
   };
+}
+
+/**
+ * The passes that matter, each once: the highest volume, the worst closure margin and the
+ * longest (ties: the first in plan order), with why each was chosen; among the passes
+ * wholly inside the span when there are any.
+ */
+export function passesThatMatter(plan: PlanResult): { contact: Contact; why: string[] }[] {
+  // passes wholly inside the span (a geostationary "pass" as long as the span is not one); all when none is
+  const whole = plan.contacts.filter((c) => !c.aosClipped && !c.losClipped);
+  const pool = whole.length > 0 ? whole : plan.contacts;
+  const linked = pool.filter((c) => c.link !== undefined);
+  const pick = (pool: readonly Contact[], better: (a: Contact, b: Contact) => boolean): Contact | undefined =>
+    pool.reduce<Contact | undefined>((b, c) => (b === undefined || better(c, b) ? c : b), undefined);
+  const chosen: [Contact | undefined, string][] = [
+    [pick(linked, (a, b) => a.link!.volumeBits > b.link!.volumeBits), 'best: highest volume'],
+    [pick(linked, (a, b) => a.link!.worstMarginDb < b.link!.worstMarginDb), 'worst closure margin'],
+    [pick(pool, (a, b) => a.durationS > b.durationS), 'longest'],
+  ];
+  const out: { contact: Contact; why: string[] }[] = [];
+  for (const [c, why] of chosen) {
+    if (!c) continue;
+    const same = out.find((o) => o.contact === c);
+    if (same) same.why.push(why);
+    else out.push({ contact: c, why: [why] });
+  }
+  return out;
 }
 
 /** The highest-volume contact of each spacecraft (plan order; ties: the earlier AOS). */

@@ -17,6 +17,26 @@ function timeText(tMs: number, zone: string | undefined): string {
   return zone ? isoInZone(tMs, zone) : isoUtc(tMs, 1);
 }
 
+/** The time alone when it falls on the same date as `refMs` (as printed), else the full time. */
+function sameDayText(tMs: number, refMs: number, zone: string | undefined): string {
+  const t = timeText(tMs, zone);
+  const ref = timeText(refMs, zone);
+  return t.slice(0, 10) === ref.slice(0, 10) ? t.slice(11) : t;
+}
+
+/** The MODCOD (or code) with the most time in a contact, "-" when none closes. */
+function mostTimeIn(timeInModcodS: Record<string, number>): string {
+  let best = '-';
+  let bestS = 0;
+  for (const [name, t] of Object.entries(timeInModcodS)) {
+    if (t > bestS || (t === bestS && t > 0 && name < best)) {
+      best = name;
+      bestS = t;
+    }
+  }
+  return best;
+}
+
 export function renderPlanTable(plan: PlanResult, zone?: string): string {
   const parts: string[] = [];
   const hasLink = plan.contacts.some((c) => c.link !== undefined);
@@ -33,33 +53,39 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
       parts.push('  no contacts in the window');
       continue;
     }
-    const cols: Column[] = [
-      { header: 'spacecraft' },
-      { header: zone ? `AOS (${zone})` : 'AOS (UTC)' },
-      { header: 'TCA' },
-      { header: 'LOS' },
-      { header: 'duration', align: 'right' },
-      { header: 'max el deg', align: 'right' },
-      { header: 'az AOS', align: 'right' },
-      { header: 'az LOS', align: 'right' },
-    ];
-    if (hasLink) cols.push({ header: 'volume', align: 'right' });
-    if (hasExpected) cols.push({ header: 'expected', align: 'right' });
-    if (hasLink) cols.push({ header: 'worst margin dB', align: 'right' });
+    // what the link gives first, then the geometry (TCA and azimuths: contacts.csv, plan.json)
+    const cols: Column[] = [{ header: 'spacecraft' }];
+    if (hasLink) {
+      cols.push(
+        { header: zone ? `data start (${zone})` : 'data start (UTC)' },
+        { header: 'data end' },
+        { header: 'volume', align: 'right' },
+        ...(hasExpected ? [{ header: 'expected', align: 'right' } as const] : []),
+        { header: 'closure margin dB', align: 'right' },
+        { header: 'most time in' },
+      );
+    }
+    cols.push({ header: hasLink ? 'AOS' : zone ? `AOS (${zone})` : 'AOS (UTC)' }, { header: 'LOS' }, { header: 'duration', align: 'right' }, { header: 'max el deg', align: 'right' });
     const body = rows.map((c) => {
-      const r = [
-        c.spacecraftId,
-        timeText(c.aosMs, zone) + (c.aosClipped ? '<' : ''),
-        timeText(c.tcaMs, zone),
-        timeText(c.losMs, zone) + (c.losClipped ? '>' : ''),
+      const l = c.link;
+      const ref = l ? l.dataStartMs : c.aosMs;
+      const r = [c.spacecraftId];
+      if (hasLink) {
+        r.push(
+          l ? timeText(l.dataStartMs, zone) : '-',
+          l ? sameDayText(l.dataEndMs, ref, zone) : '-',
+          l ? formatBits(l.volumeBits) : '-',
+          ...(hasExpected ? [l?.expectedVolumeBits !== undefined ? formatBits(l.expectedVolumeBits) : '-'] : []),
+          l ? fixed(l.worstMarginDb, 1) : '-',
+          l ? mostTimeIn(l.timeInModcodS) : '-',
+        );
+      }
+      r.push(
+        (hasLink && l ? sameDayText(c.aosMs, ref, zone) : timeText(c.aosMs, zone)) + (c.aosClipped ? '<' : ''),
+        (hasLink && l ? sameDayText(c.losMs, ref, zone) : sameDayText(c.losMs, c.aosMs, zone)) + (c.losClipped ? '>' : ''),
         formatDuration(c.durationS),
         fixed(c.maxElevationDeg, 1),
-        fixed(c.aosAzimuthDeg, 0),
-        fixed(c.losAzimuthDeg, 0),
-      ];
-      if (hasLink) r.push(c.link ? formatBits(c.link.volumeBits) : '-');
-      if (hasExpected) r.push(c.link?.expectedVolumeBits !== undefined ? formatBits(c.link.expectedVolumeBits) : '-');
-      if (hasLink) r.push(c.link ? fixed(c.link.worstMarginDb, 1) : '-');
+      );
       return r;
     });
     parts.push(indent(renderTable(cols, body)));
@@ -118,8 +144,9 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
 function summaryLine(rows: Contact[], hasLink: boolean, hasExpected: boolean): string {
   const totalS = rows.reduce((s, c) => s + c.durationS, 0);
   let line = `${rows.length} window${rows.length === 1 ? '' : 's'}, contact time ${formatDuration(totalS)}`;
-  if (hasLink) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
-  if (hasExpected) line += `, expected ${formatBits(rows.reduce((s, c) => s + (c.link?.expectedVolumeBits ?? c.link?.volumeBits ?? 0), 0))}`;
+  const linked = hasLink && rows.some((c) => c.link !== undefined);
+  if (linked) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
+  if (linked && hasExpected) line += `, expected ${formatBits(rows.reduce((s, c) => s + (c.link?.expectedVolumeBits ?? c.link?.volumeBits ?? 0), 0))}`;
   return line;
 }
 
@@ -130,35 +157,76 @@ function indent(text: string): string {
     .join('\n');
 }
 
-/** One contact as a plain record with fixed rounding (JSON and CSV share it). */
-export function contactRecord(c: Contact): Record<string, string | number | boolean | null> {
-  const rec: Record<string, string | number | boolean | null> = {
-    station: c.stationId,
-    spacecraft: c.spacecraftId,
-    aos_utc: isoUtc(c.aosMs, 3),
-    tca_utc: isoUtc(c.tcaMs, 3),
-    los_utc: isoUtc(c.losMs, 3),
-    duration_s: round(c.durationS, 1),
-    max_elevation_deg: round(c.maxElevationDeg, 2),
-    aos_azimuth_deg: round(c.aosAzimuthDeg, 2),
-    los_azimuth_deg: round(c.losAzimuthDeg, 2),
-    aos_clipped: c.aosClipped,
-    los_clipped: c.losClipped,
-  };
-  if (c.lightTimeS !== undefined && Number.isFinite(c.lightTimeS)) {
-    rec.light_time_s = round(c.lightTimeS, 6);
-    rec.aos_transmit_utc = isoUtc(c.aosTransmitMs ?? Number.NaN, 3);
-    rec.los_transmit_utc = isoUtc(c.losTransmitMs ?? Number.NaN, 3);
-  }
-  if (c.link) {
-    rec.radio = c.link.radioId;
-    rec.volume_bits = Math.round(c.link.volumeBits);
-    if (c.link.expectedVolumeBits !== undefined) rec.expected_volume_bits = c.link.expectedVolumeBits;
-    rec.closed_s = round(c.link.closedS, 1);
-    rec.worst_margin_db = round(c.link.worstMarginDb, 2);
-    rec.worst_margin_utc = isoUtc(c.link.worstMarginAtMs, 3);
-    rec.worst_margin_elevation_deg = round(c.link.worstMarginElevationDeg, 2);
-    rec.peak_rate_bps = Math.round(c.link.peakRateBps);
+type Cell = string | number | boolean | null;
+
+/** Seconds per MODCOD (or code), largest first, as "name=seconds;..." for one CSV cell. */
+function modcodCell(timeInModcodS: Record<string, number>): string {
+  return Object.entries(timeInModcodS)
+    .filter(([, t]) => t > 0)
+    .sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1))
+    .map(([name, t]) => `${name}=${t.toFixed(1)}`)
+    .join(';');
+}
+
+/** Light-time targets (ephemeris, lunar site and orbiter) carry the one-way light time and transmit times. */
+const hasLightTime = (c: Contact): boolean => c.lightTimeS !== undefined && Number.isFinite(c.lightTimeS);
+
+/**
+ * The one definition of a contact record's columns, in order (contacts.csv's header and
+ * plan.json's key order): who, then what the link gives (data start and end, volume,
+ * closure margin, time per MODCOD), then the geometry as a trailing group. Link columns are
+ * empty (CSV) or absent (JSON) for a contact without a link.
+ */
+export const CONTACT_COLUMNS: readonly {
+  key: string;
+  /** Needs the contact's link. */
+  link?: true;
+  /** Present only when this holds (JSON: the key left out; CSV: the column when any contact has it). */
+  when?: (c: Contact) => boolean;
+  /** In plan.json only. */
+  jsonOnly?: true;
+  value: (c: Contact) => Cell;
+}[] = [
+  { key: 'station', value: (c) => c.stationId },
+  { key: 'spacecraft', value: (c) => c.spacecraftId },
+  { key: 'radio', link: true, value: (c) => c.link!.radioId },
+  { key: 'data_start_utc', link: true, value: (c) => isoUtc(c.link!.dataStartMs, 3) },
+  { key: 'data_end_utc', link: true, value: (c) => isoUtc(c.link!.dataEndMs, 3) },
+  { key: 'volume_bits', link: true, value: (c) => Math.round(c.link!.volumeBits) },
+  { key: 'expected_volume_bits', link: true, when: (c) => c.link?.expectedVolumeBits !== undefined, value: (c) => c.link!.expectedVolumeBits! },
+  {
+    key: 'expected_volume_bound_bits',
+    link: true,
+    jsonOnly: true,
+    when: (c) => c.link?.expectedVolumeBoundBits !== undefined,
+    value: (c) => Math.ceil(c.link!.expectedVolumeBoundBits!),
+  },
+  { key: 'closure_margin_db', link: true, value: (c) => round(c.link!.worstMarginDb, 2) },
+  { key: 'time_in_modcod_s', link: true, value: (c) => modcodCell(c.link!.timeInModcodS) },
+  { key: 'closed_s', link: true, value: (c) => round(c.link!.closedS, 1) },
+  { key: 'peak_rate_bps', link: true, value: (c) => Math.round(c.link!.peakRateBps) },
+  { key: 'closure_margin_at_utc', link: true, value: (c) => isoUtc(c.link!.worstMarginAtMs, 3) },
+  { key: 'closure_margin_at_elevation_deg', link: true, value: (c) => round(c.link!.worstMarginElevationDeg, 2) },
+  { key: 'aos_utc', value: (c) => isoUtc(c.aosMs, 3) },
+  { key: 'tca_utc', value: (c) => isoUtc(c.tcaMs, 3) },
+  { key: 'los_utc', value: (c) => isoUtc(c.losMs, 3) },
+  { key: 'duration_s', value: (c) => round(c.durationS, 1) },
+  { key: 'max_elevation_deg', value: (c) => round(c.maxElevationDeg, 2) },
+  { key: 'aos_azimuth_deg', value: (c) => round(c.aosAzimuthDeg, 2) },
+  { key: 'los_azimuth_deg', value: (c) => round(c.losAzimuthDeg, 2) },
+  { key: 'aos_clipped', value: (c) => c.aosClipped },
+  { key: 'los_clipped', value: (c) => c.losClipped },
+  { key: 'light_time_s', when: hasLightTime, value: (c) => round(c.lightTimeS!, 6) },
+  { key: 'aos_transmit_utc', when: hasLightTime, value: (c) => isoUtc(c.aosTransmitMs ?? Number.NaN, 3) },
+  { key: 'los_transmit_utc', when: hasLightTime, value: (c) => isoUtc(c.losTransmitMs ?? Number.NaN, 3) },
+];
+
+/** One contact as a plain record in CONTACT_COLUMNS order, fixed rounding (JSON and CSV share it). */
+export function contactRecord(c: Contact, forJson = false): Record<string, Cell> {
+  const rec: Record<string, Cell> = {};
+  for (const col of CONTACT_COLUMNS) {
+    if ((col.link && !c.link) || (col.when && !col.when(c)) || (col.jsonOnly && !forJson)) continue;
+    rec[col.key] = col.value(c);
   }
   return rec;
 }
@@ -169,10 +237,10 @@ export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> 
     availability_percent: plan.availabilityPercent,
     link_step_s: plan.linkStepS,
     spacecraft: plan.spacecraft,
-    stations: plan.stations,
+    stations: plan.stations.map((st) => ({ id: st.id, name: st.name, time_zone: st.timeZone })),
     contacts: plan.contacts.map((c) => ({
-      ...contactRecord(c),
-      ...(c.link?.expectedVolumeBoundBits !== undefined ? { expected_volume_bound_bits: Math.ceil(c.link.expectedVolumeBoundBits) } : {}),
+      ...contactRecord(c, true),
+      // in JSON, the time per MODCOD as an object, in its column's place
       ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
       ...(c.otherLinks
         ? {
@@ -180,7 +248,7 @@ export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> 
               radio: l.radioId,
               volume_bits: l.volumeBits,
               ...(l.expectedVolumeBits !== undefined ? { expected_volume_bits: l.expectedVolumeBits } : {}),
-              worst_margin_db: round(l.worstMarginDb, 2),
+              closure_margin_db: round(l.worstMarginDb, 2),
               peak_rate_bps: Math.round(l.peakRateBps),
             })),
           }
@@ -200,12 +268,9 @@ function roundRecord(r: Record<string, number>, d: number): Record<string, numbe
 }
 
 export function renderPlanCsv(plan: PlanResult): string {
-  const records = plan.contacts.map(contactRecord);
-  const first = records[0];
-  if (!first) return 'station,spacecraft,aos_utc,tca_utc,los_utc,duration_s,max_elevation_deg\n';
-  const columns: string[] = [];
-  for (const r of records) for (const k of Object.keys(r)) if (!columns.includes(k)) columns.push(k);
-  return stringify(records, { header: true, columns, cast: { boolean: (v) => (v ? 'true' : 'false') } });
+  const hasLink = plan.contacts.some((c) => c.link !== undefined);
+  const columns = CONTACT_COLUMNS.filter((col) => !col.jsonOnly && (hasLink || !col.link) && (!col.when || plan.contacts.some(col.when))).map((col) => col.key);
+  return stringify(plan.contacts.map((c) => contactRecord(c)), { header: true, columns, cast: { boolean: (v) => (v ? 'true' : 'false') } });
 }
 
 /** One Sun outage with fixed rounding (JSON and CSV share it). */

@@ -225,7 +225,8 @@ export interface Station {
   heightKm: number;
   mask: Mask;
   timeZone: string;
-  receiver: Receiver;
+  /** Absent: the station has no antenna or receiver in its file; its windows carry no link. */
+  receiver?: Receiver;
   pointingErrorDeg: number;
   polarization: Polarization;
   climate: Climate;
@@ -268,4 +269,21 @@ export interface Scenario {
   span?: Span;
   link: LinkSettings;
   sources: { spacecraftFile: string; networkFile: string };
+  /** Every file read (spacecraft file, network file, element-set files they name), for provenance. */
+  inputFiles: InputFile[];
+  /** Defaults taken and inputs accepted with a caveat, for the CLI to print before the work. */
+  notices: Notice[];
+}
+
+export interface InputFile {
+  path: string;
+  sha256: string;
+  bytes: number;
+}
+
+/** Something the user should know about the files that is not an error. */
+export interface Notice {
+  level: 'note' | 'warning';
+  /** "file: field: what was taken or assumed". */
+  message: string;
 }

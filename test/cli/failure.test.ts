@@ -576,7 +576,7 @@ const cases: Case[] = [
     command: (c) => ['check', '--spacecraft', c.files['fleet.json']!, ...net],
     exit: 0,
     stream: 'out',
-    first: /^ok: .*fleet\.json: 1 spacecraft, 1 element sets, 1 radios$/,
+    first: /^ok: .*fleet\.json: 1 spacecraft, 1 element set, 1 radio$/,
   },
   // 14. stale temp files of dead processes
   {
