@@ -29,7 +29,7 @@ import type { Candidate } from './types.js';
 
 interface HighsModule {
   withModel<R>(src: unknown, op: (m: HighsModel) => R): R;
-  constants: { objectiveSense: { maximize: unknown }; variableType: { continuous: unknown; integer: unknown }; matrixFormat: { csr: unknown } };
+  constants: { objectiveSense: { maximize: unknown }; variableType: { continuous: number; integer: number } };
   infinity: number;
 }
 interface HighsModel {
@@ -109,7 +109,7 @@ export async function solveMip(inp: MipInput): Promise<MipOutput> {
   const cost: number[] = [];
   const lo: number[] = [];
   const hi: number[] = [];
-  const integ: unknown[] = [];
+  const integ: number[] = [];
   const INT = highs.constants.variableType.integer;
   const CONT = highs.constants.variableType.continuous;
   const withRec = new Set(inp.recorders.map((r) => r.spacecraftId));
@@ -258,11 +258,11 @@ export async function solveMip(inp: MipInput): Promise<MipOutput> {
     colUpper: Float64Array.from(hi),
     rowLower: Float64Array.from(rLo),
     rowUpper: Float64Array.from(rHi),
-    matrix: { format: highs.constants.matrixFormat.csr, numRows, numCols, starts: Int32Array.from(rStart), indices: Int32Array.from(rIdx), values: Float64Array.from(rVal) },
-    integrality: integ,
+    matrix: { format: 'csr', numRows, numCols, starts: Int32Array.from(rStart), indices: Int32Array.from(rIdx), values: Float64Array.from(rVal) },
+    integrality: Int32Array.from(integ),
   };
   return highs.withModel(model, (m) => {
-    m.options.set({ time_limit: inp.timeLimitS, mip_rel_gap: inp.mipRelGap, output_flag: false, random_seed: 0, threads: 1 });
+    m.options.set({ time_limit: inp.timeLimitS, mip_rel_gap: inp.mipRelGap, output_flag: false, random_seed: 0 });
     const res = m.run();
     const status = STATUS[res.modelStatus] ?? `status ${res.modelStatus}`;
     const sol = m.getSolution();

@@ -85,6 +85,7 @@ class UnionFind {
 /** Pointing series and tracking lost for every contact at a station with mechanics. */
 function mechanicsOf(plan: PlanResult, scenario: Scenario, rules: BookingRules, span: Span): Map<number, { lost: Intervals; pointing: PointingSeries }> {
   const out = new Map<number, { lost: Intervals; pointing: PointingSeries }>();
+  if (rules.mechanics.size === 0) return out;
   const targets = new Map(scenario.spacecraft.map((s) => [s.id, makeTarget(s, span)]));
   const sites = new Map(scenario.stations.map((s) => [s.id, makeSite(s.id, s.latitudeDeg, s.longitudeDeg, s.heightKm)]));
   plan.contacts.forEach((c, i) => {
