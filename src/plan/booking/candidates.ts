@@ -10,9 +10,10 @@
  *    an allowed length are candidates while a window has at most
  *    maxCandidatesPerWindow of them (the full grid). A longer window keeps
  *    its edges, the grid points before AOS - set-up and after LOS + set-up
- *    (0, 1, 2 grid steps) of the other windows at its station, UTC midnights,
+ *    (0, 1, 2 grid steps) of the other windows, maintenance periods and fixed
+ *    bookings at its station, UTC midnights,
  *    and a coarser grid (a whole multiple of gridS); each point pairs with
- *    the next 6 points and with point + minTrackS and + maxTrackS (on the
+ *    the next 8 points and with point + minTrackS and + maxTrackS (on the
  *    grid), within the length limits.
  *  - Bits of a track: the contact's drain profile (recorder.ts drainProfile:
  *    each 15-min volume bin flowing uniformly over its part of the data
@@ -176,6 +177,7 @@ export function trackPeriods(
   const ceilG = (t: number) => spanStartMs + Math.ceil((t - spanStartMs) / g) * g;
   const set = new Set(gridPoints(g * m));
   for (const ev of events) {
+    if (ev === aosMs || ev === losMs) continue; // the window's own edges
     if (ev < aosMs - setupMs - 3 * g || ev > losMs + setupMs + 3 * g) continue;
     for (let k = 0; k <= 2; k++) {
       for (const t of [floorG(ev - setupMs) - k * g, ceilG(ev + setupMs) + k * g]) if (t > aosMs && t < losMs) set.add(t);
@@ -204,7 +206,7 @@ export function trackPeriods(
 }
 
 /** In a long window, how many following points each point pairs with. */
-const NEXT_POINTS = 6;
+const NEXT_POINTS = 8;
 
 /** Antennas free for [a, b] given the blocked triplets. */
 function freeAntennas(k: number, a: number, b: number, blocked: readonly number[]): number[] {

@@ -171,6 +171,8 @@ export async function bookNetwork(plan: PlanResult, scenario: Scenario, rules: B
   const blocked = new Map<string, number[]>();
   for (const m of rules.maintenance) (blocked.get(m.stationId) ?? blocked.set(m.stationId, []).get(m.stationId)!).push(m.startMs, m.endMs, m.antenna ?? -1);
   for (const f of rules.fixed) (blocked.get(f.stationId) ?? blocked.set(f.stationId, []).get(f.stationId)!).push(f.startMs, f.endMs, f.antenna);
+  // maintenance and fixed bookings are events too: long windows get track edges beside them
+  for (const [st, b] of blocked) for (let i = 0; i + 2 < b.length; i += 3) (events.get(st) ?? events.set(st, []).get(st)!).push(b[i]!, b[i + 1]!);
 
   const windows: WindowInput[] = plan.contacts.map((c, i) => {
     const st = stationById.get(c.stationId)!;
