@@ -70,12 +70,12 @@ export function followerLost(tMs: ArrayLike<number>, cmdDeg: ArrayLike<number>, 
   const n = tMs.length;
   if (n < 2 || !(rateDegS > 0)) return out;
   let e = 0;
-  let lostFrom = -1; // ms where the current off-track interval began, -1 when on track
+  let lostFrom: number | null = null; // ms where the current off-track interval began
   const mark = (t: number, off: boolean) => {
-    if (off && lostFrom < 0) lostFrom = t;
-    else if (!off && lostFrom >= 0) {
+    if (off && lostFrom === null) lostFrom = t;
+    else if (!off && lostFrom !== null) {
       if (t > lostFrom) out.push(lostFrom, t);
-      lostFrom = -1;
+      lostFrom = null;
     }
   };
   for (let i = 0; i + 1 < n; i++) {
@@ -111,7 +111,7 @@ export function followerLost(tMs: ArrayLike<number>, cmdDeg: ArrayLike<number>, 
     }
   }
   mark(tMs[n - 1]!, Math.abs(e) > toleranceDeg);
-  if (lostFrom >= 0 && tMs[n - 1]! > lostFrom) out.push(lostFrom, tMs[n - 1]!);
+  if (lostFrom !== null && tMs[n - 1]! > lostFrom) out.push(lostFrom, tMs[n - 1]!);
   return out;
 }
 
@@ -120,7 +120,7 @@ export function outsideRange(tMs: ArrayLike<number>, v: ArrayLike<number>, lo: n
   const out: Intervals = [];
   const n = tMs.length;
   const outside = (x: number) => x < lo || x > hi;
-  let from = n > 0 && outside(v[0]!) ? tMs[0]! : -1;
+  let from: number | null = n > 0 && outside(v[0]!) ? tMs[0]! : null;
   for (let i = 0; i + 1 < n; i++) {
     const a = v[i]!;
     const b = v[i + 1]!;
@@ -137,14 +137,14 @@ export function outsideRange(tMs: ArrayLike<number>, v: ArrayLike<number>, lo: n
     }
     cross.sort((x, y) => x.t - y.t);
     for (const c of cross) {
-      if (c.out && from < 0) from = c.t;
-      else if (!c.out && from >= 0) {
+      if (c.out && from === null) from = c.t;
+      else if (!c.out && from !== null) {
         if (c.t > from) out.push(from, c.t);
-        from = -1;
+        from = null;
       }
     }
   }
-  if (from >= 0 && n > 0 && tMs[n - 1]! > from) out.push(from, tMs[n - 1]!);
+  if (from !== null && n > 0 && tMs[n - 1]! > from) out.push(from, tMs[n - 1]!);
   return out;
 }
 
