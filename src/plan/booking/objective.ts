@@ -73,18 +73,32 @@ export function requirementRows(cands: readonly Candidate[], rules: ReadonlyMap<
   for (const sc of spacecraftIds) {
     const r = rules.get(sc);
     if (!r) continue;
-    const mine = bySc.get(sc) ?? [];
+    const mine = [...(bySc.get(sc) ?? [])].sort((a, b) => cands[a]!.startMs - cands[b]!.startMs || a - b);
+    const starts = mine.map((i) => cands[i]!.startMs);
+    const longest = mine.reduce((m, i) => Math.max(m, cands[i]!.endMs - cands[i]!.startMs), 0);
+    /** First position in `mine` whose start is >= t (or > t with `after`). */
+    const at = (t: number, after = false): number => {
+      let lo = 0;
+      let hi = starts.length;
+      while (lo < hi) {
+        const mid = (lo + hi) >> 1;
+        if (starts[mid]! < t || (after && starts[mid]! === t)) lo = mid + 1;
+        else hi = mid;
+      }
+      return lo;
+    };
     for (const req of r.requirements) {
       if (req.kind === 'maxGapH') {
         const G = req.value * 3_600_000;
         for (let t = span.startMs; t + G <= span.endMs; t += GAP_STEP_MS) {
-          const members = mine.filter((i) => cands[i]!.startMs <= t + G && cands[i]!.endMs >= t);
+          const members: number[] = [];
+          for (let k = at(t - longest); k < at(t + G, true); k++) if (cands[mine[k]!]!.endMs >= t) members.push(mine[k]!);
           rows.push({ spacecraftId: sc, requirement: req, period: new Date(t).toISOString().slice(0, 16) + 'Z', startMs: t, endMs: t + G, needed: 1, members, coef: members.map(() => 1) });
         }
         continue;
       }
       for (const [a, b, name] of daysInSpan(span, req.dayZone)) {
-        const members = mine.filter((i) => cands[i]!.startMs >= a && cands[i]!.startMs < b);
+        const members = mine.slice(at(a), at(b));
         const coef = members.map((i) => {
           const c = cands[i]!;
           return req.kind === 'tracksPerDay' ? 1 : req.kind === 'minutesPerDay' ? (c.endMs - c.startMs) / 60000 : c.bits / 1e9;

@@ -14,12 +14,15 @@
  *  - 'highs-mip': up to mipMaxVariables binaries: the MIP of mip.ts within
  *    the time limit and relative gap;
  *  - 'greedy': larger components (greedy.ts), with the gap against an upper
- *    bound: per station the smaller of two relaxations, the exact optimum
- *    of the candidates on its antennas with set-up but without slews,
- *    spacecraft rules, requirements or blocked antennas, and the sum over
- *    its windows of each window's best set of non-overlapping tracks alone
- *    (every feasible booking is feasible in both; recorder-aware value is
- *    at most the link value and penalties only lower the objective).
+ *    bound: the smaller of (A) the sum over stations of the smaller of two
+ *    relaxations, the exact optimum of the candidates on its antennas with
+ *    set-up but without slews, spacecraft rules, requirements or blocked
+ *    antennas, and the sum over its windows of each window's best set of
+ *    non-overlapping tracks alone; and (B) the sum over spacecraft of those
+ *    window bests, capped for a spacecraft with a recorder model at priority
+ *    x (fill + data generated over the span). Every feasible booking is
+ *    feasible in each relaxation; recorder-aware value is at most the link
+ *    value and penalties only lower the objective.
  * Deterministic: windows, candidates and components are built in plan order
  * and HiGHS runs single-threaded with a fixed seed.
  */
@@ -27,7 +30,7 @@ import { makeSite } from '../../geometry/earth.js';
 import type { Scenario, Span } from '../../scenario/types.js';
 import { makeTarget } from '../contacts.js';
 import { scheduleAntennas, type Job } from '../schedule.js';
-import type { DrainSegment } from '../recorder.js';
+import { onTimeS, type DrainSegment } from '../recorder.js';
 import type { PlanResult } from '../types.js';
 import { buildCandidates, type WindowInput } from './candidates.js';
 import { maxSlewS, slewBetweenS, type ConflictContext } from './conflicts.js';
@@ -308,9 +311,11 @@ export async function bookNetwork(plan: PlanResult, scenario: Scenario, rules: B
     const stIds = [...new Set(cands.map((c) => c.stationId))];
     for (const s of scIds) seenSc.add(s);
     const rows = requirementRows(cands, rules.spacecraft, span, scIds.filter((s) => coupled(s)));
-    const recs = scIds
-      .filter((s) => recorderSc.has(s))
-      .map((s) => recorderModel(cands, cands.map((_, i) => i).filter((i) => cands[i]!.spacecraftId === s), scById.get(s)!.recorder!, span, scById.get(s)!.priority, s));
+    const candsOf = new Map<string, number[]>();
+    cands.forEach((c, i) => (candsOf.get(c.spacecraftId) ?? candsOf.set(c.spacecraftId, []).get(c.spacecraftId)!).push(i));
+    const atStation = new Map<string, number[]>();
+    cands.forEach((c, i) => (atStation.get(c.stationId) ?? atStation.set(c.stationId, []).get(c.stationId)!).push(i));
+    const recs = scIds.filter((s) => recorderSc.has(s)).map((s) => recorderModel(cands, candsOf.get(s)!, scById.get(s)!.recorder!, span, scById.get(s)!.priority, s));
     const hard = hardWeight(cands);
     const base = { stations: stIds, spacecraft: scIds, candidates: cands.length };
     const variables = cands.reduce((s, c) => s + c.antennas.length, 0);
@@ -338,19 +343,36 @@ export async function bookNetwork(plan: PlanResult, scenario: Scenario, rules: B
     } else {
       solver = 'greedy';
       chosen = solveGreedy(cands, rows, hard, ctx);
-      let ub = 0;
+      // A: per station; B: per spacecraft (a recorder's spacecraft sends at most fill + generated)
+      const windowBest = new Map<number, number>();
+      let boundA = 0;
       for (const sid of stIds) {
         const s = stationById.get(sid)!;
-        const members = cands.map((_, i) => i).filter((i) => cands[i]!.stationId === sid);
+        const members = atStation.get(sid)!;
         let flow = 0;
         for (const t of stationExact(cands, members, s.antennaCount, s.setupTimeS * 1000).keys()) flow += cands[t]!.value;
         // each window alone: its tracks never overlap (one spacecraft at one station)
         const byWindow = new Map<number, number[]>();
         for (const t of members) (byWindow.get(cands[t]!.contactIndex) ?? byWindow.set(cands[t]!.contactIndex, []).get(cands[t]!.contactIndex)!).push(t);
         let windows = 0;
-        for (const list of byWindow.values()) for (const t of stationExact(cands, list, 1, 0).keys()) windows += cands[t]!.value;
-        ub += Math.min(flow, windows);
+        for (const [w, list] of byWindow) {
+          let v = 0;
+          for (const t of stationExact(cands, list, 1, 0).keys()) v += cands[t]!.value;
+          windowBest.set(w, v);
+          windows += v;
+        }
+        boundA += Math.min(flow, windows);
       }
+      let boundB = 0;
+      for (const sid of scIds) {
+        const ws = new Set(candsOf.get(sid)!.map((t) => cands[t]!.contactIndex));
+        let v = 0;
+        for (const w of ws) v += windowBest.get(w) ?? 0;
+        const rec = recorderSc.has(sid) ? scById.get(sid)!.recorder! : undefined;
+        if (rec) v = Math.min(v, (scById.get(sid)!.priority * (rec.initialFillBits + rec.generationBps * onTimeS(span.endMs - span.startMs, rec.duty))) / 1e9);
+        boundB += v;
+      }
+      const ub = Math.min(boundA, boundB);
       extra = { status: 'heuristic', variables, bound: ub };
     }
     finish(cands, globalIdx, rows, recs, hard, chosen, { solver, ...base, ...extra }, started);
