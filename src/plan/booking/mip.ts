@@ -23,7 +23,7 @@
  * Every pairwise rule of conflicts.ts is held, so a solution is feasible by
  * construction, and the optimum is the optimum of objective.ts.
  */
-import { antennaCompatible, maxSlewS, slewBetweenS, type ConflictContext } from './conflicts.js';
+import { antennaCompatible, maxSlewS, type ConflictContext } from './conflicts.js';
 import type { RecorderModel, RequirementRow } from './objective.js';
 import type { Candidate } from './types.js';
 
@@ -81,23 +81,16 @@ export function xColumns(cands: readonly Candidate[]): { col: Map<string, number
   return { col, of };
 }
 
-/** Groups of candidate indices that share a point (sweep over distinct starts; `reachMs` extends each end). */
-function cliqueGroups(members: readonly number[], cands: readonly Candidate[], reachMs: (t: number) => number): number[][] {
+/** For each distinct start u: the candidates with start <= u < end + reach (sweep in start order). */
+function cliqueGroups(members: readonly number[], cands: readonly Candidate[], reachMs: number): number[][] {
   const sorted = [...members].sort((a, b) => cands[a]!.startMs - cands[b]!.startMs || a - b);
   const groups: number[][] = [];
   let active: number[] = [];
-  let lastAdded = false;
   for (let k = 0; k < sorted.length; ) {
     const u = cands[sorted[k]!]!.startMs;
-    active = active.filter((t) => cands[t]!.endMs + reachMs(t) > u);
-    let added = false;
-    while (k < sorted.length && cands[sorted[k]!]!.startMs === u) {
-      active.push(sorted[k]!);
-      k++;
-      added = true;
-    }
-    if (added || !lastAdded) groups.push([...active]);
-    lastAdded = added;
+    active = active.filter((t) => cands[t]!.endMs + reachMs > u);
+    while (k < sorted.length && cands[sorted[k]!]!.startMs === u) active.push(sorted[k++]!);
+    groups.push([...active]);
   }
   return groups;
 }
@@ -156,7 +149,7 @@ export async function solveMip(inp: MipInput): Promise<MipOutput> {
     const ants = [...new Set(list.flatMap((t) => cands[t]!.antennas))].sort((a, b) => a - b);
     for (const a of ants) {
       const on = list.filter((t) => cands[t]!.antennas.includes(a));
-      for (const g of cliqueGroups(on, cands, () => setup)) {
+      for (const g of cliqueGroups(on, cands, setup)) {
         if (g.length < 2) continue;
         const idx = g.map((t) => xCol.get(`${t}:${a}`)!);
         addRow(idx, idx.map(() => 1), -INF, 1);
@@ -175,7 +168,6 @@ export async function solveMip(inp: MipInput): Promise<MipOutput> {
           const j = sorted[k]!;
           const cj = cands[j]!;
           if (j === i || antennaCompatible(ci, cj, ctx)) continue;
-          if (ci.endMs + setup + slewBetweenS(ci, cj, ctx) * 1000 <= cj.startMs) continue;
           for (const a of ci.antennas) {
             if (!cj.antennas.includes(a)) continue;
             addRow([xCol.get(`${i}:${a}`)!, xCol.get(`${j}:${a}`)!], [1, 1], -INF, 1);
@@ -193,7 +185,7 @@ export async function solveMip(inp: MipInput): Promise<MipOutput> {
     groups.set(key, l);
   });
   for (const list of groups.values()) {
-    for (const g of cliqueGroups(list, cands, () => 0)) {
+    for (const g of cliqueGroups(list, cands, 0)) {
       const idx = g.flatMap(xs);
       if (idx.length < 2) continue;
       addRow(idx, idx.map(() => 1), -INF, 1);

@@ -110,7 +110,7 @@ function stationExact(cands: readonly Candidate[], members: readonly number[], a
   return out;
 }
 
-/** Why a requirement row was missed (see the head comment of this function's caller). */
+/** Why a requirement row was missed: what the spacecraft's own candidates allow that day, ignoring everyone else. */
 function missReason(row: RequirementRow, cands: readonly Candidate[]): string {
   const kind = row.requirement.kind;
   if (row.members.length === 0) {

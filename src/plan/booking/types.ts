@@ -127,7 +127,7 @@ export interface Candidate {
   antennas: number[];
 }
 
-export type SolverName = 'whole-window exact (existing)' | 'dp-one-antenna' | 'highs-mip' | 'greedy';
+export type SolverName = 'whole-window exact (existing)' | 'highs-mip' | 'greedy';
 
 export interface ComponentRun {
   solver: SolverName;
