@@ -107,7 +107,7 @@ export interface RecorderTrack {
 export interface RecorderResult {
   stepS: number;
   seriesStepS: number;
-  /** 'scheduled' when only the schedule's taken windows drain, else 'all contacts'. */
+  /** 'scheduled' when only the schedule's taken windows drain, 'booked tracks' for a booking, else 'all contacts'. */
   contactsUsed: 'scheduled' | 'all contacts' | 'booked tracks';
   tracks: RecorderTrack[];
 }

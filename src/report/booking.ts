@@ -70,7 +70,7 @@ export function renderBookingTable(plan: PlanResult, b: BookingResult, zone?: st
   const sent = new Map<number, number>();
   for (const t of recorders?.tracks ?? []) for (const p of t.passes) sent.set(p.contactIndex, p.downlinkedBits);
   parts.push(
-    `Antenna booking: ${b.tracks.length} tracks on a ${b.gridS} s grid${b.coarsestStepS > b.gridS ? ` (long windows coarsened up to ${b.coarsestStepS} s)` : ''}; ` +
+    `Antenna booking: ${b.tracks.length} tracks on a ${b.gridS} s grid${b.coarsestStepS > b.gridS ? ` (long windows: their edges, points beside the other windows and a coarser grid of up to ${b.coarsestStepS} s)` : ''}; ` +
       `objective ${b.objective.toFixed(3)} (value ${b.value.toFixed(3)} priority x Gbit, penalties ${b.softPenalty.toFixed(3)}), bound ${b.bound.toFixed(3)}, gap ${(b.gap * 100).toFixed(3)} %; ` +
       `MIP time limit ${b.timeLimitS} s, relative gap ${b.mipRelGap}; ${(b.timeMs / 1000).toFixed(2)} s`,
   );
