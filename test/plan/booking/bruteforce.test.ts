@@ -159,3 +159,20 @@ describe('booking MIP = brute force on small random cases', () => {
     expect(withRows).toBeGreaterThan(20);
   }, 120_000);
 });
+
+describe('fast cumulative drain', () => {
+  // CumulativeDrain.at (binary search) against recorder.ts cumulativeDrainBits (a plain sum) at many times
+  it('equals the plain sum everywhere', async () => {
+    const { CumulativeDrain } = await import('../../../src/plan/booking/candidates.js');
+    const { cumulativeDrainBits, drainProfile } = await import('../../../src/plan/recorder.js');
+    const rnd = mulberry32(7);
+    for (let k = 0; k < 20; k++) {
+      const aos = T0 + Math.floor(rnd() * 3600) * 1000;
+      const c = contact('X', 'A', aos, aos + Math.floor(600 + rnd() * 7200) * 1000, Math.floor(1e5 + rnd() * 1e7));
+      const prof = drainProfile(c.link!);
+      const fast = new CumulativeDrain(prof);
+      for (let t = aos - 5000; t < c.losMs + 5000; t += 7919) expect(fast.at(t)).toBe(cumulativeDrainBits(prof, t));
+      expect(fast.at(c.losMs)).toBe(c.link!.volumeBits);
+    }
+  });
+});
