@@ -132,4 +132,11 @@ describe('a maintenance period is never booked', () => {
     expect(b.tracks.map((t) => `${iso(t.candidate.startMs)}-${iso(t.candidate.endMs)}`)).toEqual(['10:00-10:09', '10:21-10:30']);
     for (const t of b.tracks) expect(t.candidate.endMs <= m.startMs || t.candidate.startMs >= m.endMs).toBe(true);
   });
+  it('a fixed booking on antenna 0 of a two-antenna station moves the track to antenna 1', async () => {
+    // the whole window fits on antenna 1 (nothing there), so it is booked whole on it
+    const two = setup([c], [{ id: 'SC', priority: 1 }], [{ id: 'S', antennaCount: 2, setupTimeS: 60 }], 1);
+    const fixed = [{ stationId: 'S', antenna: 0, startMs: m.startMs, endMs: m.endMs, label: 'f' }];
+    const b = await bookNetwork(two.plan, two.scenario, rulesWith({ SC: { minTrackS: 300, maxTrackS: 1800 } }, { fixed }));
+    expect(b.tracks.map((t) => `${t.antenna} ${iso(t.candidate.startMs)}-${iso(t.candidate.endMs)}`)).toEqual(['1 10:00-10:30']);
+  });
 });
