@@ -20,7 +20,9 @@
  *    antennas, and the sum over its windows of each window's best set of
  *    non-overlapping tracks alone; and (B) the sum over spacecraft of those
  *    window bests, capped for a spacecraft with a recorder model at priority
- *    x (fill + data generated over the span). Every feasible booking is
+ *    x (fill + data generated over the span); and (C) the first relaxation of
+ *    (A) over the spacecraft without a recorder model alone plus the caps of
+ *    (B) for the others. Every feasible booking is
  *    feasible in each relaxation; recorder-aware value is at most the link
  *    value and penalties only lower the objective.
  * Deterministic: windows, candidates and components are built in plan order
@@ -364,15 +366,26 @@ export async function bookNetwork(plan: PlanResult, scenario: Scenario, rules: B
         boundA += Math.min(flow, windows);
       }
       let boundB = 0;
+      let recPart = 0;
       for (const sid of scIds) {
         const ws = new Set(candsOf.get(sid)!.map((t) => cands[t]!.contactIndex));
         let v = 0;
         for (const w of ws) v += windowBest.get(w) ?? 0;
         const rec = recorderSc.has(sid) ? scById.get(sid)!.recorder! : undefined;
-        if (rec) v = Math.min(v, (scById.get(sid)!.priority * (rec.initialFillBits + rec.generationBps * onTimeS(span.endMs - span.startMs, rec.duty))) / 1e9);
+        if (rec) {
+          v = Math.min(v, (scById.get(sid)!.priority * (rec.initialFillBits + rec.generationBps * onTimeS(span.endMs - span.startMs, rec.duty))) / 1e9);
+          recPart += v;
+        }
         boundB += v;
       }
-      const ub = Math.min(boundA, boundB);
+      // C: the spacecraft without a recorder model per station (their candidates alone), plus the recorder caps
+      let boundC = recPart;
+      for (const sid of stIds) {
+        const s = stationById.get(sid)!;
+        const members = atStation.get(sid)!.filter((t) => !recorderSc.has(cands[t]!.spacecraftId));
+        for (const t of stationExact(cands, members, s.antennaCount, s.setupTimeS * 1000).keys()) boundC += cands[t]!.value;
+      }
+      const ub = Math.min(boundA, boundB, boundC);
       extra = { status: 'heuristic', variables, bound: ub };
     }
     finish(cands, globalIdx, rows, recs, hard, chosen, { solver, ...base, ...extra }, started);
