@@ -140,3 +140,33 @@ describe('a maintenance period is never booked', () => {
     expect(b.tracks.map((t) => `${t.antenna} ${iso(t.candidate.startMs)}-${iso(t.candidate.endMs)}`)).toEqual(['1 10:00-10:30']);
   });
 });
+
+describe('the greedy upper bound is a bound', () => {
+  // Small random networks booked twice: by the MIP (exact, gap 0) and by the greedy solver
+  // (mipMaxVariables 0). The greedy's stated bound must be >= the exact optimum, and its
+  // objective <= it. Authority: the MIP optimum, itself checked against brute force.
+  it('on 25 random networks', async () => {
+    let seed = 11;
+    const rnd = () => {
+      seed = (seed * 1103515245 + 12345) % 2147483648;
+      return seed / 2147483648;
+    };
+    for (let k = 0; k < 25; k++) {
+      const contacts: Contact[] = [];
+      const scs: Sc[] = ['P', 'Q', 'R'].map((id, i) => ({ id, priority: 1 + i, ...(rnd() < 0.5 ? { recorder: { capacityBits: 3e9, generationBps: 5e4 + rnd() * 2e5, initialFillBits: rnd() * 2e9 } } : {}) }));
+      for (let w = 0; w < 8; w++) {
+        const aos = T0 + Math.floor(rnd() * 20 * 60) * 60_000;
+        contacts.push(contact(scs[w % 3]!.id, rnd() < 0.5 ? 'S' : 'U', aos, aos + (4 + Math.floor(rnd() * 20)) * MIN, 1e6 + Math.floor(rnd() * 5e6)));
+      }
+      contacts.sort((a, b) => (a.stationId < b.stationId ? -1 : a.stationId > b.stationId ? 1 : a.aosMs - b.aosMs));
+      const { plan, scenario } = setup(contacts, scs, [{ id: 'S', antennaCount: 1, setupTimeS: 120 }, { id: 'U', antennaCount: 2, setupTimeS: 60 }], 1);
+      const sc = { P: { minTrackS: 180, maxTrackS: 900, requirements: [{ index: 0, kind: 'tracksPerDay' as const, value: 3, hard: false, penalty: 0.5, dayZone: 'UTC' }] } };
+      const exact = await bookNetwork(plan, scenario, rulesWith(sc, { mipRelGap: 0, timeLimitS: 60 }));
+      const greedy = await bookNetwork(plan, scenario, rulesWith(sc, { mipMaxVariables: 0 }));
+      expect(exact.components.every((c) => c.solver !== 'greedy')).toBe(true);
+      expect(greedy.components.some((c) => c.solver === 'greedy')).toBe(true);
+      expect(greedy.bound).toBeGreaterThanOrEqual(exact.objective - 1e-6);
+      expect(greedy.objective).toBeLessThanOrEqual(exact.objective + 1e-6);
+    }
+  }, 120_000);
+});
