@@ -16,7 +16,7 @@ import { renderScheduleCsv, renderScheduleTable, scheduleJson } from '../report/
 import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable } from '../report/recorder.js';
 import { marginRows } from '../plan/margin.js';
 import { countHook, progressLine } from './progress.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 import { BOOKING_OUTPUTS, readBooking, runBooking } from './booking.js';
@@ -36,7 +36,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       const opts = readCommonOptions(raw);
       prepareOutput(opts, io, PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
-      const scenario = loadScenario(opts.files);
+      const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
       const rules = readBooking(raw.booking, scenario);
       const span = spanFor(opts, scenario, io);
       assertPreflight(scenario, span); // file and field of a model-range problem, before any work

@@ -10,6 +10,8 @@ import type { PlanResult } from './types.js';
 
 export interface PlanOptions {
   linkStepS?: number;
+  /** Compute each contact's expected volume over an average year (default true; the benchmark turns it off). */
+  expectedVolume?: boolean;
   /** Skip the link engine (geometry only). */
   geometryOnly?: boolean;
   search?: SearchOptions;
@@ -28,7 +30,7 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}):
   let propagations = found.propagations;
   const linkStepS = opts.linkStepS ?? DEFAULT_LINK_STEP_S;
   if (!opts.geometryOnly) {
-    const setup = prepareLinks(scenario, geometry);
+    const setup = prepareLinks(scenario, geometry, opts.expectedVolume === false ? { expectedVolume: false } : {});
     warnings.push(...setup.warnings);
     const stats = integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);
     const other = integrateOtherRadios(found.contacts, geometry, setup, scenario.link, linkStepS);

@@ -19,6 +19,7 @@ function timeText(tMs: number, zone: string | undefined): string {
 export function renderPlanTable(plan: PlanResult, zone?: string): string {
   const parts: string[] = [];
   const hasLink = plan.contacts.some((c) => c.link !== undefined);
+  const hasExpected = plan.contacts.some((c) => c.link?.expectedVolumeBits !== undefined);
   parts.push(
     `Contact plan ${isoUtc(plan.span.startMs, 0)} .. ${isoUtc(plan.span.endMs, 0)}` +
       (hasLink ? `, link at ${plan.availabilityPercent} % availability, sampled every ${plan.linkStepS} s` : ''),
@@ -41,7 +42,9 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
       { header: 'az AOS', align: 'right' },
       { header: 'az LOS', align: 'right' },
     ];
-    if (hasLink) cols.push({ header: 'volume', align: 'right' }, { header: 'worst margin dB', align: 'right' });
+    if (hasLink) cols.push({ header: 'volume', align: 'right' });
+    if (hasExpected) cols.push({ header: 'expected', align: 'right' });
+    if (hasLink) cols.push({ header: 'worst margin dB', align: 'right' });
     const body = rows.map((c) => {
       const r = [
         c.spacecraftId,
@@ -53,31 +56,41 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
         fixed(c.aosAzimuthDeg, 0),
         fixed(c.losAzimuthDeg, 0),
       ];
-      if (hasLink) r.push(c.link ? formatBits(c.link.volumeBits) : '-', c.link ? fixed(c.link.worstMarginDb, 1) : '-');
+      if (hasLink) r.push(c.link ? formatBits(c.link.volumeBits) : '-');
+      if (hasExpected) r.push(c.link?.expectedVolumeBits !== undefined ? formatBits(c.link.expectedVolumeBits) : '-');
+      if (hasLink) r.push(c.link ? fixed(c.link.worstMarginDb, 1) : '-');
       return r;
     });
     parts.push(indent(renderTable(cols, body)));
-    parts.push(`  ${summaryLine(rows, hasLink)}`);
+    parts.push(`  ${summaryLine(rows, hasLink, hasExpected)}`);
   }
   const clipped = plan.contacts.some((c) => c.aosClipped || c.losClipped);
   parts.push('');
-  parts.push(`All stations (station sum): ${summaryLine(plan.contacts, hasLink)}`);
+  parts.push(`All stations (station sum): ${summaryLine(plan.contacts, hasLink, hasExpected)}`);
   const once = uniqueVolumes(
     plan.spacecraft.map((s) => s.id),
     plan.contacts,
   );
   parts.push(
     `Counted once per spacecraft radio (best station at each instant, union of windows): contact time ${formatDuration(once.reduce((s, u) => s + u.contactTimeS, 0))}` +
-      (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : ''),
+      (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : '') +
+      (hasExpected ? `, expected ${formatBits(once.reduce((s, u) => s + u.expectedVolumeBits, 0))}` : ''),
   );
+  if (hasExpected) {
+    parts.push(
+      `"volume": at ${plan.availabilityPercent} % availability (the atmosphere exceeded ${Number((100 - plan.availabilityPercent).toPrecision(12))} % of an average year); ` +
+        '"expected": the mean over an average year\'s attenuation statistics (README, "Expected volume").',
+    );
+  }
   if (clipped) parts.push('"<" / ">": window cut by the start / end of the span.');
   return parts.join('\n') + '\n';
 }
 
-function summaryLine(rows: Contact[], hasLink: boolean): string {
+function summaryLine(rows: Contact[], hasLink: boolean, hasExpected: boolean): string {
   const totalS = rows.reduce((s, c) => s + c.durationS, 0);
   let line = `${rows.length} window${rows.length === 1 ? '' : 's'}, contact time ${formatDuration(totalS)}`;
   if (hasLink) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
+  if (hasExpected) line += `, expected ${formatBits(rows.reduce((s, c) => s + (c.link?.expectedVolumeBits ?? c.link?.volumeBits ?? 0), 0))}`;
   return line;
 }
 
@@ -106,6 +119,7 @@ export function contactRecord(c: Contact): Record<string, string | number | bool
   if (c.link) {
     rec.radio = c.link.radioId;
     rec.volume_bits = Math.round(c.link.volumeBits);
+    if (c.link.expectedVolumeBits !== undefined) rec.expected_volume_bits = c.link.expectedVolumeBits;
     rec.closed_s = round(c.link.closedS, 1);
     rec.worst_margin_db = round(c.link.worstMarginDb, 2);
     rec.worst_margin_utc = isoUtc(c.link.worstMarginAtMs, 3);
@@ -124,12 +138,14 @@ export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> 
     stations: plan.stations,
     contacts: plan.contacts.map((c) => ({
       ...contactRecord(c),
+      ...(c.link?.expectedVolumeBoundBits !== undefined ? { expected_volume_bound_bits: Math.ceil(c.link.expectedVolumeBoundBits) } : {}),
       ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
       ...(c.otherLinks
         ? {
             other_radios: c.otherLinks.map((l) => ({
               radio: l.radioId,
               volume_bits: l.volumeBits,
+              ...(l.expectedVolumeBits !== undefined ? { expected_volume_bits: l.expectedVolumeBits } : {}),
               worst_margin_db: round(l.worstMarginDb, 2),
               peak_rate_bps: Math.round(l.peakRateBps),
             })),
