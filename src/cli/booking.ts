@@ -4,19 +4,20 @@
  * before the work (a bad file exits 2 with no output) and `runBooking` after
  * the contacts are found; a missed hard requirement makes the exit code 1.
  */
-import { loadBooking } from '../scenario/booking.js';
 import type { Scenario } from '../scenario/types.js';
-import { bookNetwork, type BookingResult } from '../plan/booking/solve.js';
-import { bookedPlan } from '../plan/booking/booked-plan.js';
+import type { BookingResult } from '../plan/booking/solve.js';
 import type { BookingRules } from '../plan/booking/types.js';
 import type { RecorderResult } from '../plan/recorder.js';
 import type { PlanResult } from '../plan/types.js';
-import { bookingJson, renderBookingCsv, renderBookingTable, renderRequirementsCsv } from '../report/booking.js';
+
+// The booking modules load only when --booking is given (plan's start-up stays as it was).
 
 export const BOOKING_OUTPUTS = ['booking.csv', 'requirements.csv'];
 
-export function readBooking(file: string | undefined, scenario: Scenario): BookingRules | undefined {
-  return file === undefined ? undefined : loadBooking(file, scenario);
+export async function readBooking(file: string | undefined, scenario: Scenario): Promise<BookingRules | undefined> {
+  if (file === undefined) return undefined;
+  const { loadBooking } = await import('../scenario/booking.js');
+  return loadBooking(file, scenario);
 }
 
 export interface BookingRun {
@@ -30,6 +31,9 @@ export interface BookingRun {
 }
 
 export async function runBooking(unscheduled: PlanResult, scenario: Scenario, rules: BookingRules): Promise<BookingRun> {
+  const { bookNetwork } = await import('../plan/booking/solve.js');
+  const { bookedPlan } = await import('../plan/booking/booked-plan.js');
+  const { bookingJson, renderBookingCsv, renderBookingTable, renderRequirementsCsv } = await import('../report/booking.js');
   const booking = await bookNetwork(unscheduled, scenario, rules);
   const { plan, recorders } = bookedPlan(unscheduled, booking, scenario.spacecraft);
   return {

@@ -37,7 +37,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       prepareOutput(opts, io, PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
       const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
-      const rules = readBooking(raw.booking, scenario);
+      const rules = await readBooking(raw.booking, scenario);
       const span = spanFor(opts, scenario, io);
       assertPreflight(scenario, span); // file and field of a model-range problem, before any work
       const progress = progressLine(io, 'plan');
