@@ -3,7 +3,7 @@ import type { Command } from 'commander';
 import { loadScenario } from '../scenario/load.js';
 import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
-import { renderPlanTable, renderPlanJson, renderPlanCsv } from '../report/plan.js';
+import { renderPlanTable, renderPlanJson, renderPlanCsv, renderSunOutagesCsv } from '../report/plan.js';
 import { writeOutputs } from '../report/write.js';
 import { allStationsDaily, dailyTotals, spacecraftTotals, type DayMode } from '../plan/daily.js';
 import { highestVolumeContacts, seriesForContacts } from '../plan/series.js';
@@ -22,7 +22,7 @@ import type { SetExit } from './commands.js';
 import { BOOKING_OUTPUTS, readBooking, runBooking } from './booking.js';
 
 /** Fixed names plan writes (checked before the work: none may be a folder). */
-const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'daily.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg', ...BOOKING_OUTPUTS];
+const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'daily.csv', 'sun-outages.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg', ...BOOKING_OUTPUTS];
 
 export function registerPlan(program: Command, io: CliIo, setExit: SetExit): void {
   addCommonOptions(
@@ -77,6 +77,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
           { name: 'plan.json', content: json },
           { name: 'contacts.csv', content: csv },
           { name: 'daily.csv', content: renderDailyCsv(daily) },
+          { name: 'sun-outages.csv', content: renderSunOutagesCsv(plan) },
           ...(schedule && recorders
             ? [
                 { name: 'schedule.csv', content: renderScheduleCsv(unscheduled, schedule) },

@@ -12,7 +12,7 @@
  */
 import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
-import { runPlan, planResult, type PlanOptions } from './run.js';
+import { runPlan, planResult, sortOutages, type PlanOptions } from './run.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import type { PlanResult } from './types.js';
 import { reviveError, type SerializedError } from '../errors.js';
@@ -110,5 +110,7 @@ export function mergePlans(scenario: Scenario, span: Span, parts: PlanResult[]):
     stats.propagations += p.stats.propagations;
     stats.linkSamples += p.stats.linkSamples;
   }
-  return planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, [...scWarn.flat(), ...other], stats);
+  const merged = planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, [...scWarn.flat(), ...other], stats);
+  if (parts.some((p) => p.sunOutages)) merged.sunOutages = sortOutages(scenario, parts.flatMap((p) => p.sunOutages ?? []));
+  return merged;
 }

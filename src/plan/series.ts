@@ -15,7 +15,8 @@ import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type PreparedLink } from '../link/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import { makeTarget } from './contacts.js';
-import { lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
+import { bodyTempK, lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
+import { newBodyAngles, SkyBodies } from '../geometry/sky-bodies.js';
 import type { Contact, PlanResult } from './types.js';
 
 export interface ContactSeries {
@@ -51,7 +52,9 @@ export function sampleContact(
   link: PreparedLink,
   acquisitionTimeS: number,
   stepS: number,
+  sky: SkyBodies,
 ): ContactSeries {
+  const angles = newBodyAngles();
   if (!(stepS > 0)) throw new Error(`sampleContact: stepS must be > 0 (got ${stepS})`);
   const stepMs = stepS * 1000;
   const n = Math.max(0, Math.ceil((contact.losMs - contact.aosMs) / stepMs - 1e-9)) + 1;
@@ -68,7 +71,8 @@ export function sampleContact(
     const t = k === n - 1 ? contact.losMs : contact.aosMs + k * stepMs;
     if (!target.stateEcefAt(t, state)) continue;
     lookFrom(site, state, look);
-    evaluateLink(link, look, sample);
+    sky.at(t);
+    evaluateLink(link, look, sample, true, bodyTempK(link, sky, site, state, angles));
     tMs[m] = t;
     elevationDeg[m] = look.elevationDeg;
     rateBps[m] = t >= dataStartMs ? sample.rateBps : 0;
@@ -119,6 +123,7 @@ export function seriesForContacts(
 ): ContactSeries[] {
   const out: ContactSeries[] = [];
   const targets = new Map<string, Target>();
+  const sky = new SkyBodies(span);
   for (const c of contacts) {
     const sc = scenario.spacecraft.find((s) => s.id === c.spacecraftId);
     const station = scenario.stations.find((s) => s.id === c.stationId);
@@ -132,7 +137,7 @@ export function seriesForContacts(
     const site = makeSite(station.id, station.latitudeDeg, station.longitudeDeg, station.heightKm);
     const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station));
     const stepS = seriesStepS(c.durationS, maxPoints);
-    out.push(sampleContact(c, target, site, link, scenario.link.acquisitionTimeS, stepS));
+    out.push(sampleContact(c, target, site, link, scenario.link.acquisitionTimeS, stepS, sky));
   }
   return out;
 }

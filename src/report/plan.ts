@@ -5,7 +5,8 @@
  * volumes to the bit) so the same inputs give byte-identical files.
  */
 import { stringify } from 'csv-stringify/sync';
-import type { PlanResult, Contact } from '../plan/types.js';
+import type { PlanResult, Contact, SunOutage } from '../plan/types.js';
+import { SUN_OUTAGE_BEAMWIDTHS } from '../geometry/sun-outage.js';
 import { isoUtc, isoInZone, formatDuration } from '../time/format.js';
 import { renderTable, fixed, formatBits, type Column } from './table.js';
 import { uniqueVolumes } from '../plan/unique-volume.js';
@@ -83,6 +84,34 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
     );
   }
   if (clipped) parts.push('"<" / ">": window cut by the start / end of the span.');
+  const outages = plan.sunOutages ?? [];
+  parts.push('');
+  parts.push(`Sun outages (the Sun's limb within ${SUN_OUTAGE_BEAMWIDTHS} half-power beamwidth of boresight; their noise is in the volumes): ${outages.length === 0 ? 'none' : outages.length}`);
+  if (outages.length > 0) {
+    const cols: Column[] = [
+      { header: 'station' },
+      { header: 'spacecraft' },
+      { header: zone ? `start (${zone})` : 'start (UTC)' },
+      { header: 'end' },
+      { header: 'duration', align: 'right' },
+      { header: 'closest deg', align: 'right' },
+      { header: 'at' },
+      { header: 'beam deg', align: 'right' },
+      { header: 'Sun noise K', align: 'right' },
+    ];
+    const body = outages.map((o) => [
+      o.stationId,
+      o.spacecraftId,
+      timeText(o.startMs, zone),
+      timeText(o.endMs, zone),
+      formatDuration((o.endMs - o.startMs) / 1000),
+      fixed(o.minOffsetDeg, 3),
+      timeText(o.minAtMs, zone),
+      fixed(o.beamwidthDeg, 3),
+      fixed(o.peakSunNoiseK, 0),
+    ]);
+    parts.push(indent(renderTable(cols, body)));
+  }
   return parts.join('\n') + '\n';
 }
 
@@ -116,6 +145,11 @@ export function contactRecord(c: Contact): Record<string, string | number | bool
     aos_clipped: c.aosClipped,
     los_clipped: c.losClipped,
   };
+  if (c.lightTimeS !== undefined && Number.isFinite(c.lightTimeS)) {
+    rec.light_time_s = round(c.lightTimeS, 6);
+    rec.aos_transmit_utc = isoUtc(c.aosTransmitMs ?? Number.NaN, 3);
+    rec.los_transmit_utc = isoUtc(c.losTransmitMs ?? Number.NaN, 3);
+  }
   if (c.link) {
     rec.radio = c.link.radioId;
     rec.volume_bits = Math.round(c.link.volumeBits);
@@ -152,6 +186,7 @@ export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> 
           }
         : {}),
     })),
+    ...(plan.sunOutages ? { sun_outages: plan.sunOutages.map(sunOutageRecord) } : {}),
     ...extra,
     warnings: plan.warnings,
   };
@@ -171,4 +206,25 @@ export function renderPlanCsv(plan: PlanResult): string {
   const columns: string[] = [];
   for (const r of records) for (const k of Object.keys(r)) if (!columns.includes(k)) columns.push(k);
   return stringify(records, { header: true, columns, cast: { boolean: (v) => (v ? 'true' : 'false') } });
+}
+
+/** One Sun outage with fixed rounding (JSON and CSV share it). */
+export function sunOutageRecord(o: SunOutage): Record<string, string | number | null> {
+  return {
+    station: o.stationId,
+    spacecraft: o.spacecraftId,
+    start_utc: isoUtc(o.startMs, 3),
+    end_utc: isoUtc(o.endMs, 3),
+    duration_s: round((o.endMs - o.startMs) / 1000, 1),
+    closest_offset_deg: round(o.minOffsetDeg, 4),
+    closest_utc: isoUtc(o.minAtMs, 3),
+    beamwidth_deg: round(o.beamwidthDeg, 4),
+    peak_sun_noise_k: round(o.peakSunNoiseK, 1),
+  };
+}
+
+const SUN_OUTAGE_COLUMNS = ['station', 'spacecraft', 'start_utc', 'end_utc', 'duration_s', 'closest_offset_deg', 'closest_utc', 'beamwidth_deg', 'peak_sun_noise_k'];
+
+export function renderSunOutagesCsv(plan: PlanResult): string {
+  return stringify((plan.sunOutages ?? []).map(sunOutageRecord), { header: true, columns: SUN_OUTAGE_COLUMNS });
 }

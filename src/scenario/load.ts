@@ -26,6 +26,8 @@ import {
 } from './schema.js';
 import { parseTleText } from './tle.js';
 import { parseOmm } from './omm.js';
+import { parseOem } from './oem.js';
+import { MOON_MEAN_RADIUS_KM } from '../geometry/targets/moon-ephemeris.js';
 import { resolveCoding } from './coding.js';
 import { meanMotionAndEccentricity, perigeeProblem } from './elements-common.js';
 import { toFeeds } from './feeds.js';
@@ -207,6 +209,43 @@ function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, proble
 function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, problems: Problem[]): OrbitSource {
   if (orbit.moon) return { kind: 'moon' };
   if (orbit.sky) return { kind: 'fixedSky', ...orbit.sky };
+  if (orbit.lunarSite) {
+    const ls = orbit.lunarSite;
+    return {
+      kind: 'lunarSite',
+      site: {
+        latitudeDeg: ls.latitudeDeg,
+        longitudeDeg: ls.longitudeDeg,
+        heightKm: ls.heightM / 1000,
+        mask: toMask(ls.maskDeg ?? 0, ls.horizon, file, `${path}.lunarSite`, problems),
+      },
+    };
+  }
+  if (orbit.lunarOrbit) {
+    const lo = orbit.lunarOrbit;
+    const epochMs = parseInstant(lo.epoch);
+    if (epochMs === undefined) {
+      problems.push({ file, path: `${path}.lunarOrbit.epoch`, message: `${JSON.stringify(lo.epoch)} is not an ISO 8601 time from ${INSTANT_RANGE_TEXT}` });
+    }
+    const periKm = lo.semiMajorAxisKm * (1 - lo.eccentricity) - MOON_MEAN_RADIUS_KM;
+    if (periKm < 10) {
+      problems.push({ file, path: `${path}.lunarOrbit`, message: `pericentre ${periKm.toFixed(1)} km above the mean lunar radius; valid: >= 10 km` });
+    }
+    const { epoch: _e, ...rest } = lo;
+    return { kind: 'lunarOrbit', elements: { ...rest, epochMs: epochMs ?? 0, grazingMarginKm: orbit.grazingMarginKm ?? 0 } };
+  }
+  if (orbit.oemFile !== undefined) {
+    const target = resolveBeside(file, orbit.oemFile);
+    const empty = { origin: target, objectName: '', segments: [] };
+    const text = readText(target, '');
+    if (!text.ok) {
+      appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.oemFile)` })));
+      return { kind: 'ephemeris', ephemeris: empty, grazingMarginKm: 0 };
+    }
+    const read = parseOem(text.value, target);
+    appendAll(problems, read.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.oemFile)` })));
+    return { kind: 'ephemeris', ephemeris: read.ephemeris ?? empty, grazingMarginKm: orbit.grazingMarginKm ?? 0 };
+  }
   let sets: ElementSet[] = [];
   if (orbit.tle !== undefined) sets = collect(parseTleText(orbit.tle, file, `${path}.tle`), problems);
   else if (orbit.tleFile !== undefined) {
@@ -311,27 +350,7 @@ function loadNetwork(file: string, problems: Problem[]): Station[] | undefined {
 }
 
 function toStation(s: StationEntry, file: string, path: string, problems: Problem[]): Station {
-  let mask: Mask = { kind: 'constant', elevationDeg: s.maskDeg ?? 5 };
-  if (s.horizon) {
-    const pts = [...s.horizon].sort((a, b) => a[0] - b[0]);
-    for (let i = 1; i < pts.length; i++) {
-      if (pts[i]![0] === pts[i - 1]![0]) {
-        problems.push({ file, path: `${path}.horizon`, message: `azimuth ${pts[i]![0]} appears twice; each azimuth once` });
-        break;
-      }
-    }
-    // 0 and 360 deg are one direction: the mask model refuses two elevations there
-    const first = pts[0];
-    const last = pts[pts.length - 1];
-    if (first && last && first[0] === 0 && last[0] === 360 && first[1] !== last[1]) {
-      problems.push({
-        file,
-        path: `${path}.horizon`,
-        message: `[0, ${first[1]}] and [360, ${last[1]}] are the same azimuth with different elevations; valid: give one of them, or the same elevation at both`,
-      });
-    }
-    mask = { kind: 'profile', azimuthDeg: pts.map((p) => p[0] % 360), elevationDeg: pts.map((p) => p[1]) };
-  }
+  const mask = toMask(s.maskDeg ?? 5, s.horizon, file, path, problems);
   const a = s.antenna;
   const rx = s.receiver;
   let receiver: Receiver;
@@ -384,4 +403,27 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
     setupTimeS: a.setupTimeS ?? 0,
     ...(feeds ? { feeds } : {}),
   };
+}
+
+/** A mask from a constant or a horizon profile ([azimuthDeg, elevationDeg] points), checked. */
+function toMask(constantDeg: number, horizon: [number, number][] | undefined, file: string, path: string, problems: Problem[]): Mask {
+  if (!horizon) return { kind: 'constant', elevationDeg: constantDeg };
+  const pts = [...horizon].sort((a, b) => a[0] - b[0]);
+  for (let i = 1; i < pts.length; i++) {
+    if (pts[i]![0] === pts[i - 1]![0]) {
+      problems.push({ file, path: `${path}.horizon`, message: `azimuth ${pts[i]![0]} appears twice; each azimuth once` });
+      break;
+    }
+  }
+  // 0 and 360 deg are one direction: the mask model refuses two elevations there
+  const first = pts[0];
+  const last = pts[pts.length - 1];
+  if (first && last && first[0] === 0 && last[0] === 360 && first[1] !== last[1]) {
+    problems.push({
+      file,
+      path: `${path}.horizon`,
+      message: `[0, ${first[1]}] and [360, ${last[1]}] are the same azimuth with different elevations; valid: give one of them, or the same elevation at both`,
+    });
+  }
+  return { kind: 'profile', azimuthDeg: pts.map((p) => p[0] % 360), elevationDeg: pts.map((p) => p[1]) };
 }

@@ -59,9 +59,49 @@ export const orbitSchema = z
       })
       .strict()
       .optional(),
+    /** A CCSDS OEM file (KVN or XML) from flight dynamics. */
+    oemFile: text().optional(),
+    /** A transmitter on the lunar surface (selenographic, east-positive longitude). */
+    lunarSite: z
+      .object({
+        latitudeDeg: range(-90, 90),
+        longitudeDeg: range(-180, 360),
+        heightM: range(-10_000, 11_000),
+        maskDeg: range(-10, 90).optional(),
+        horizon: z
+          .array(z.tuple([range(0, 360), range(-10, 90)], { message: 'each point must be [azimuthDeg, elevationDeg]' }))
+          .min(2, { message: 'needs at least 2 [azimuthDeg, elevationDeg] points' })
+          .max(MAX_PROFILE_POINTS, { message: `has more than ${MAX_PROFILE_POINTS} points (0.1 deg steps)` })
+          .optional(),
+      })
+      .strict()
+      .optional(),
+    /** Mean Keplerian elements about the Moon, referred to the lunar equator at the epoch (two-body). */
+    lunarOrbit: z
+      .object({
+        epoch: text(),
+        semiMajorAxisKm: range(1737.4 + 10, 60_000),
+        eccentricity: finite().refine((v) => v >= 0 && v < 0.95, { message: 'must be in 0..0.95' }),
+        inclinationDeg: range(0, 180),
+        raanDeg: range(0, 360),
+        argPericenterDeg: range(0, 360),
+        meanAnomalyDeg: range(0, 360),
+      })
+      .strict()
+      .optional(),
+    /** Height above the mean lunar radius within which a line of sight counts as cut by the Moon, km (default 0). */
+    grazingMarginKm: range(0, 100).optional(),
   })
   .strict()
-  .superRefine(exactlyOne(['tle', 'tleFile', 'omm', 'ommFile', 'moon', 'sky']));
+  .superRefine(exactlyOne(['tle', 'tleFile', 'omm', 'ommFile', 'moon', 'sky', 'oemFile', 'lunarSite', 'lunarOrbit']))
+  .superRefine((o, ctx) => {
+    if (o.grazingMarginKm !== undefined && o.oemFile === undefined && o.lunarOrbit === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['grazingMarginKm'], message: 'applies to oemFile and lunarOrbit only' });
+    }
+    if (o.lunarSite && o.lunarSite.maskDeg !== undefined && o.lunarSite.horizon !== undefined) {
+      ctx.addIssue({ code: 'custom', path: ['lunarSite'], message: 'has maskDeg and horizon; give one of them' });
+    }
+  });
 
 export const antennaTxSchema = z
   .object({

@@ -78,9 +78,9 @@ async function cli(args: string[]): Promise<{ code: number; out: string; err: st
 }
 
 describe('scenario loading', () => {
-  it('loads the bundled demo: six invented spacecraft, six invented stations', () => {
+  it('loads the bundled demo: eight invented spacecraft, six invented stations', () => {
     const sc = loadScenario(demoFiles());
-    expect(sc.spacecraft.map((s) => s.id)).toEqual(['KESTREL-1', 'HERON-2', 'PETREL-3', 'MOONWREN', 'ANCHOR-G', 'DRIFTER']);
+    expect(sc.spacecraft.map((s) => s.id)).toEqual(['KESTREL-1', 'HERON-2', 'PETREL-3', 'MOONWREN', 'TERN-BASE', 'ANCHOR-G', 'DRIFTER', 'CURLEW']);
     expect(sc.stations).toHaveLength(6);
     expect(sc.span).toEqual({ startMs: Date.UTC(2026, 2, 5), endMs: Date.UTC(2026, 2, 12) });
     // The OMM file and the TLE file give the expected catalogue numbers.
@@ -187,7 +187,7 @@ describe('passbudget check', () => {
   it('passes the demo with exit 0', async () => {
     const r = await cli(['check']);
     expect(r.code).toBe(0);
-    expect(r.out).toMatch(/6 spacecraft/);
+    expect(r.out).toMatch(/8 spacecraft/);
   });
 
   it('prints one line per problem, exit 2, no stack trace', async () => {

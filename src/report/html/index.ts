@@ -11,6 +11,7 @@ import type { ContactSeries } from '../../plan/series.js';
 import type { PlanResult } from '../../plan/types.js';
 import { isoUtc, formatDuration } from '../../time/format.js';
 import { formatBits } from '../table.js';
+import { SUN_OUTAGE_BEAMWIDTHS } from '../../geometry/sun-outage.js';
 import { renderDailySection } from './daily.js';
 import { esc } from './escape.js';
 import { renderMarginsSection, type MarginRow } from './margins.js';
@@ -86,6 +87,18 @@ export function renderReportHtml(input: ReportInput): string {
   const warnings = plan.warnings.length
     ? `<section id="warnings"><h2>Warnings</h2><ul class="warnings">${plan.warnings.map((w) => `<li>${esc(w)}</li>`).join('')}</ul></section>`
     : '';
+  const outages = plan.sunOutages ?? [];
+  const sunOutages = plan.sunOutages
+    ? `<section id="sun-outages"><h2>Sun outages</h2>\n<p class="note">The Sun's limb within ${SUN_OUTAGE_BEAMWIDTHS} half-power beamwidth of the station's boresight; the Sun's noise is already in every volume.</p>\n` +
+      (outages.length === 0
+        ? '<p>None in the span.</p>'
+        : '<table class="outages"><thead><tr><th>station</th><th>spacecraft</th><th>start (UTC)</th><th>end</th><th>closest deg</th><th>Sun noise K</th></tr></thead><tbody>' +
+          outages
+            .map((o) => `<tr><td>${esc(o.stationId)}</td><td>${esc(o.spacecraftId)}</td><td>${isoUtc(o.startMs, 0)}</td><td>${isoUtc(o.endMs, 0)}</td><td>${o.minOffsetDeg.toFixed(3)}</td><td>${o.peakSunNoiseK.toFixed(0)}</td></tr>`)
+            .join('') +
+          '</tbody></table>') +
+      '\n</section>'
+    : '';
   return `<!DOCTYPE html>
 <html lang="en">
 <head>
@@ -122,6 +135,7 @@ ${renderSeriesSection(plan, input.series, caption)}
 ${renderMarginsSection(input.margins)}
 </section>
 ${input.recorderSvg ? `<section id="recorder"><h2>Onboard recorders</h2>\n<p class="note">Fill of each recorder over the span, draining during the scheduled contacts.</p>\n${input.recorderSvg}\n</section>` : ''}
+${sunOutages}
 ${warnings}
 <footer>Made by passbudget from the scenario files; the same inputs give the same page.</footer>
 </main>
