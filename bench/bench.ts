@@ -165,6 +165,8 @@ async function main(): Promise<void> {
   demoBenchmark();
   geometryBenchmark();
   await linkBenchmark();
+  const { bookingBenchmark } = await import('./booking-bench.js');
+  await bookingBenchmark();
 }
 
 // Run only when executed directly (link-bench.ts imports the helpers above).

@@ -26,9 +26,10 @@ import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvaila
 import { DEFAULT_LINK_STEP_S } from '../plan/link.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
+import { BOOKING_OUTPUTS, readBooking, runBooking } from './booking.js';
 
 /** Fixed names plan writes (checked before the work: none may be a folder). */
-const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'daily.csv', 'sun-outages.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg'];
+const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'daily.csv', 'sun-outages.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg', ...BOOKING_OUTPUTS];
 
 /** The passes that matter, sampled with their warnings, for the report. */
 function passViewsFor(scenario: Scenario, span: Span, plan: PlanResult): PassView[] {
@@ -66,11 +67,13 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
     .option('--local-days', "daily totals over each station's local days (its IANA zone) instead of UTC days")
     .option('--schedule', 'deconflict antennas (priority x volume), show only the windows taken, simulate the onboard recorders')
     .option('--one-station-at-a-time', 'with --schedule: a spacecraft downlinks to one station at a time')
-    .action(async (raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean }) => {
+    .option('--booking <file>', 'book track periods by the rules of this file (requirements, station rules, antenna mechanics) instead of whole windows')
+    .action(async (raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean; booking?: string }) => {
       const opts = readCommonOptions(raw);
       prepareOutput(opts, io, PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
       const scenario = withAvailability(loadScenarioNoting(opts.files, io), opts.availabilityPercent);
+      const rules = await readBooking(raw.booking, scenario);
       const span = spanFor(opts, scenario, io);
       assertPreflight(scenario, span); // file and field of a model-range problem, before any work
       const progress = progressLine(io, 'plan');
@@ -82,9 +85,10 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       );
       progress.end();
       const oneStation = Boolean(raw.oneStationAtATime);
-      const schedule = raw.schedule || oneStation ? scheduleContacts(unscheduled, scenario.stations, scenario.spacecraft, { oneStationAtATime: oneStation }) : undefined;
-      const recorders = schedule ? simulateRecorders(unscheduled, scenario.spacecraft, schedule) : undefined;
-      const plan = schedule ? scheduledPlan(unscheduled, schedule) : unscheduled;
+      const booked = rules ? await runBooking(unscheduled, scenario, rules) : undefined;
+      const schedule = !booked && (raw.schedule || oneStation) ? scheduleContacts(unscheduled, scenario.stations, scenario.spacecraft, { oneStationAtATime: oneStation }) : undefined;
+      const recorders = booked ? booked.recorders : schedule ? simulateRecorders(unscheduled, scenario.spacecraft, schedule) : undefined;
+      const plan = booked ? booked.plan : schedule ? scheduledPlan(unscheduled, schedule) : unscheduled;
       const daily = dailyTotals(plan, dayMode);
       // with a recorder, delivered = what left the recorder; the link volume is capacity
       const delivered = recorders ? new Map(recorders.tracks.map((t) => [t.spacecraftId, t.downlinkedBits])) : undefined;
@@ -95,12 +99,14 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
         ...(allStations ? { daily_all_stations: allStations.map(allStationsDayRecord) } : {}),
         spacecraft_totals: totals.map(spacecraftTotalRecord),
         ...(schedule && recorders ? { schedule: scheduleJson(unscheduled, schedule, recorders), recorder: recorderJson(recorders) } : {}),
+        ...(booked ? { booking: booked.json, recorder: recorderJson(booked.recorders) } : {}),
       });
       const csv = renderPlanCsv(plan);
       if (opts.format === 'json') io.out(json);
       else if (opts.format === 'csv') io.out(csv);
       else io.out(renderPlanTable(plan, opts.zone) + '\n' + renderDailyTable(daily, dayMode, totals, allStations));
       if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone, recorders) + '\n' + renderRecorderTable(recorders));
+      if (opts.format === 'table' && booked) io.out('\n' + booked.table(opts.zone) + '\n' + renderRecorderTable(booked.recorders));
       for (const w of plan.warnings) io.err(`warning: ${w}\n`);
       if (opts.write) {
         const written = await writeOutputs(opts.outDir, [
@@ -114,6 +120,9 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
                 { name: 'recorder.csv', content: renderRecorderCsv(recorders) },
                 { name: 'recorder.svg', content: renderRecorderSvg(recorders) },
               ]
+            : []),
+          ...(booked
+            ? [...booked.files, { name: 'recorder.csv', content: renderRecorderCsv(booked.recorders) }, { name: 'recorder.svg', content: renderRecorderSvg(booked.recorders) }]
             : []),
           ...renderCalendars(plan),
           {
@@ -149,6 +158,6 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
         ]);
         if (opts.format === 'table') io.out(`\nwrote ${written.join(', ')}\n`);
       }
-      setExit(0);
+      setExit(booked ? booked.exitCode : 0);
     });
 }

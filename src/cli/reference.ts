@@ -11,12 +11,13 @@ export function registerReference(program: Command, io: CliIo, setExit: SetExit)
   withExamples(
     program
       .command('schema')
-      .description('the JSON Schema (draft 2020-12) of a spacecraft or network file, generated from the checks `check` runs; both kinds without an argument')
-      .argument('[kind]', `file kind: ${SCHEMA_KINDS.join(' or ')} (default: one schema that accepts either)`),
+      .description('the JSON Schema (draft 2020-12) of a spacecraft, network or booking-rules file, generated from the checks `check` runs; every kind without an argument')
+      .argument('[kind]', `file kind: ${SCHEMA_KINDS.join(', ')} (default: one schema that accepts any of them)`),
     [
       ['passbudget schema spacecraft > spacecraft.schema.json', 'the spacecraft-file schema, for an editor\'s YAML / JSON language server'],
       ['passbudget schema network > network.schema.json', 'the network-file schema'],
-      ['passbudget schema', 'one schema that accepts either kind'],
+      ['passbudget schema booking > booking.schema.json', 'the booking-rules file schema (plan --booking)'],
+      ['passbudget schema', 'one schema that accepts any kind'],
     ],
   ).action((kind: string | undefined) => {
     if (kind !== undefined && !(SCHEMA_KINDS as readonly string[]).includes(kind)) {

@@ -16,7 +16,7 @@ const ageText = (s: number | null) => (s === null ? '-' : s >= 3600 ? `${(s / 36
 
 export function renderRecorderTable(r: RecorderResult): string {
   if (r.tracks.length === 0) return 'Onboard recorders: none in the scenario.\n';
-  const head = `Onboard recorders (drained by ${r.contactsUsed === 'scheduled' ? 'the scheduled windows' : 'every contact'}; ${r.stepS} s steps, FIFO, new data refused when full)`;
+  const head = `Onboard recorders (drained by ${r.contactsUsed === 'scheduled' ? 'the scheduled windows' : r.contactsUsed === 'booked tracks' ? 'the booked tracks' : 'every contact'}; ${r.stepS} s steps, FIFO, new data refused when full)`;
   const rows = r.tracks.map((t) => [
     t.spacecraftId,
     formatBits(t.capacityBits),

@@ -1,6 +1,6 @@
 // The README's examples run as written: every "$ node dist/src/cli/main.js ..." line in an
 // indented block of README.md is run with the built CLI (in a scratch folder holding the
-// shipped examples/, so files it writes stay out of the repository), and the lines shown
+// shipped examples/ and stations/, so files it writes stay out of the repository), and the lines shown
 // under it must appear in its output (stderr, then stdout) in that order, each exactly
 // (trailing blanks aside); a line "..." stands for any number of lines left out, and so
 // do the lines before the first shown line and after the last.
@@ -103,6 +103,7 @@ describe('README examples', () => {
 
   const scratch = mkdtempSync(join(tmpdir(), 'pb-readme-'));
   symlinkSync(join(repoRoot, 'examples'), join(scratch, 'examples'));
+  symlinkSync(join(repoRoot, 'stations'), join(scratch, 'stations'));
   for (const ex of examples) {
     it(`README line ${ex.line}: passbudget ${ex.args.join(' ')}`, () => {
       const r = spawnSync(process.execPath, [cliPath, ...ex.args], { cwd: scratch, encoding: 'utf8', maxBuffer: 64 * 1024 * 1024, timeout: 240_000 });

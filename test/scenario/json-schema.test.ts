@@ -38,12 +38,13 @@ describe('passbudget schema against ajv', () => {
     const validate = {
       spacecraft: ajv.compile(await schemaFromCli(['spacecraft'])),
       network: ajv.compile(await schemaFromCli(['network'])),
+      booking: ajv.compile(await schemaFromCli(['booking'])),
       either: ajv.compile(await schemaFromCli([])),
     };
     const files = shippedFiles();
     expect(files.length).toBeGreaterThanOrEqual(6);
     for (const f of files) {
-      const kind = 'spacecraft' in f.data ? 'spacecraft' : 'network';
+      const kind = 'booking' in f.data ? 'booking' : 'spacecraft' in f.data ? 'spacecraft' : 'network';
       const ok = validate[kind](f.data);
       const either = validate.either(f.data);
       if (f.path.includes('broken')) {
@@ -65,6 +66,6 @@ describe('passbudget schema against ajv', () => {
     let err = '';
     const code = await run(['schema', 'satellites'], { out: () => {}, err: (t) => (err += t), isTty: false, nowMs: () => 0 });
     expect(code).toBe(2);
-    expect(err).toBe('error: schema: "satellites" is not a file kind; valid: spacecraft, network\n');
+    expect(err).toBe('error: schema: "satellites" is not a file kind; valid: spacecraft, network, booking\n');
   });
 });
