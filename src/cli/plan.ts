@@ -30,7 +30,8 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
     .option('--local-days', "daily totals over each station's local days (its IANA zone) instead of UTC days")
     .option('--schedule', 'deconflict antennas (priority x volume), show only the windows taken, simulate the onboard recorders')
     .option('--one-station-at-a-time', 'with --schedule: a spacecraft downlinks to one station at a time')
-    .action(async (raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean }) => {
+    .option('--stats', 'print the work done on stderr: contacts, link samples, SGP4 propagations')
+    .action(async (raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean; stats?: boolean }) => {
       const opts = readCommonOptions(raw);
       prepareOutput(opts, io, PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
@@ -66,6 +67,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       else io.out(renderPlanTable(plan, opts.zone) + '\n' + renderDailyTable(daily, dayMode, totals, allStations));
       if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone, recorders) + '\n' + renderRecorderTable(recorders));
       for (const w of plan.warnings) io.err(`warning: ${w}\n`);
+      if (raw.stats) io.err(`stats: ${plan.contacts.length} contacts, ${plan.stats.linkSamples} link samples, ${plan.stats.propagations} SGP4 propagations\n`);
       if (opts.write) {
         const written = await writeOutputs(opts.outDir, [
           { name: 'plan.json', content: json },
