@@ -3,12 +3,12 @@ import type { Command } from 'commander';
 import { loadScenario } from '../scenario/load.js';
 import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
-import { renderPlanTable, renderPlanJson, renderPlanCsv } from '../report/plan.js';
+import { renderPlanTable, planJsonPieces, planCsvPieces, contactsJsonLinesPieces } from '../report/plan.js';
 import { writeOutputs } from '../report/write.js';
 import { allStationsDaily, dailyTotals, spacecraftTotals, type DayMode } from '../plan/daily.js';
 import { highestVolumeContacts, seriesForContacts } from '../plan/series.js';
 import { allStationsDayRecord, dailyRecord, renderDailyCsv, renderDailyTable, spacecraftTotalRecord } from '../report/daily.js';
-import { renderCalendars } from '../report/calendar.js';
+import { calendarFiles } from '../report/calendar.js';
 import { renderReportHtml } from '../report/html/index.js';
 import { scheduleContacts, scheduledPlan } from '../plan/schedule.js';
 import { simulateRecorders } from '../plan/recorder.js';
@@ -17,11 +17,11 @@ import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable
 import { marginRows } from '../plan/margin.js';
 import { countHook, progressLine } from './progress.js';
 import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
-import type { CliIo } from './io.js';
+import { outPieces, type CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
 /** Fixed names plan writes (checked before the work: none may be a folder). */
-const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'daily.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg'];
+const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'contacts.jsonl', 'daily.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg'];
 
 export function registerPlan(program: Command, io: CliIo, setExit: SetExit): void {
   addCommonOptions(
@@ -55,23 +55,23 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       const delivered = recorders ? new Map(recorders.tracks.map((t) => [t.spacecraftId, t.downlinkedBits])) : undefined;
       const totals = spacecraftTotals(plan, delivered);
       const allStations = dayMode.kind === 'utc' ? allStationsDaily(plan, daily) : undefined;
-      const json = renderPlanJson(plan, {
+      const jsonExtra = {
         daily: daily.map(dailyRecord),
         ...(allStations ? { daily_all_stations: allStations.map(allStationsDayRecord) } : {}),
         spacecraft_totals: totals.map(spacecraftTotalRecord),
         ...(schedule && recorders ? { schedule: scheduleJson(unscheduled, schedule, recorders), recorder: recorderJson(recorders) } : {}),
-      });
-      const csv = renderPlanCsv(plan);
-      if (opts.format === 'json') io.out(json);
-      else if (opts.format === 'csv') io.out(csv);
+      };
+      if (opts.format === 'json') outPieces(io, planJsonPieces(plan, jsonExtra));
+      else if (opts.format === 'csv') outPieces(io, planCsvPieces(plan));
       else io.out(renderPlanTable(plan, opts.zone) + '\n' + renderDailyTable(daily, dayMode, totals, allStations));
       if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone, recorders) + '\n' + renderRecorderTable(recorders));
       for (const w of plan.warnings) io.err(`warning: ${w}\n`);
       if (raw.stats) io.err(`stats: ${plan.contacts.length} contacts, ${plan.stats.linkSamples} link samples, ${plan.stats.propagations} SGP4 propagations\n`);
       if (opts.write) {
         const written = await writeOutputs(opts.outDir, [
-          { name: 'plan.json', content: json },
-          { name: 'contacts.csv', content: csv },
+          { name: 'plan.json', content: planJsonPieces(plan, jsonExtra) },
+          { name: 'contacts.csv', content: planCsvPieces(plan) },
+          { name: 'contacts.jsonl', content: contactsJsonLinesPieces(plan) },
           { name: 'daily.csv', content: renderDailyCsv(daily) },
           ...(schedule && recorders
             ? [
@@ -80,7 +80,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
                 { name: 'recorder.svg', content: renderRecorderSvg(recorders) },
               ]
             : []),
-          ...renderCalendars(plan),
+          ...calendarFiles(plan),
           {
             name: 'report.html',
             content: renderReportHtml({

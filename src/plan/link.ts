@@ -455,7 +455,8 @@ export function integrateContacts(
     // grid index range covering all contacts of this spacecraft
     const t0 = geometry.span.startMs;
     let k = Math.ceil((accs[0]!.contact.aosMs - t0) / stepMs);
-    const lastLos = Math.max(...accs.map((a) => a.contact.losMs));
+    let lastLos = -Infinity;
+    for (const a of accs) lastLos = Math.max(lastLos, a.contact.losMs);
     const kEnd = Math.floor((lastLos - t0) / stepMs);
     for (; k <= kEnd + 1; k++) {
       const tMs = k <= kEnd ? t0 + k * stepMs : Infinity;

@@ -4,11 +4,11 @@
  * Rounding is fixed (times to 0.1 s, angles to 0.01 deg, margins to 0.01 dB,
  * volumes to the bit) so the same inputs give byte-identical files.
  */
-import { stringify } from 'csv-stringify/sync';
 import type { PlanResult, Contact } from '../plan/types.js';
 import { isoUtc, isoInZone, formatDuration } from '../time/format.js';
 import { renderTable, fixed, formatBits, type Column } from './table.js';
 import { uniqueVolumes } from '../plan/unique-volume.js';
+import { jsonLinesPieces, jsonPieces, LazyList } from './json-stream.js';
 
 const round = (v: number, d: number) => (Number.isFinite(v) ? Number(v.toFixed(d)) : null);
 
@@ -88,58 +88,93 @@ function indent(text: string): string {
     .join('\n');
 }
 
+type Cell = string | number | boolean | null;
+
+/**
+ * One column of the contact outputs (contacts.csv, plan.json, contacts.jsonl): its key
+ * and its value with fixed rounding. `link` columns exist only for a contact with a link.
+ * This list is the one place that says which columns there are and in which order.
+ */
+export interface ContactColumn {
+  key: string;
+  link: boolean;
+  value: (c: Contact) => Cell;
+}
+
+const base = (key: string, value: (c: Contact) => Cell): ContactColumn => ({ key, link: false, value });
+const linked = (key: string, value: (l: NonNullable<Contact['link']>) => Cell): ContactColumn => ({ key, link: true, value: (c) => value(c.link!) });
+
+export const CONTACT_COLUMNS: readonly ContactColumn[] = [
+  base('station', (c) => c.stationId),
+  base('spacecraft', (c) => c.spacecraftId),
+  base('aos_utc', (c) => isoUtc(c.aosMs, 3)),
+  base('tca_utc', (c) => isoUtc(c.tcaMs, 3)),
+  base('los_utc', (c) => isoUtc(c.losMs, 3)),
+  base('duration_s', (c) => round(c.durationS, 1)),
+  base('max_elevation_deg', (c) => round(c.maxElevationDeg, 2)),
+  base('aos_azimuth_deg', (c) => round(c.aosAzimuthDeg, 2)),
+  base('los_azimuth_deg', (c) => round(c.losAzimuthDeg, 2)),
+  base('aos_clipped', (c) => c.aosClipped),
+  base('los_clipped', (c) => c.losClipped),
+  linked('radio', (l) => l.radioId),
+  linked('volume_bits', (l) => Math.round(l.volumeBits)),
+  linked('closed_s', (l) => round(l.closedS, 1)),
+  linked('worst_margin_db', (l) => round(l.worstMarginDb, 2)),
+  linked('worst_margin_utc', (l) => isoUtc(l.worstMarginAtMs, 3)),
+  linked('worst_margin_elevation_deg', (l) => round(l.worstMarginElevationDeg, 2)),
+  linked('peak_rate_bps', (l) => Math.round(l.peakRateBps)),
+];
+
 /** One contact as a plain record with fixed rounding (JSON and CSV share it). */
-export function contactRecord(c: Contact): Record<string, string | number | boolean | null> {
-  const rec: Record<string, string | number | boolean | null> = {
-    station: c.stationId,
-    spacecraft: c.spacecraftId,
-    aos_utc: isoUtc(c.aosMs, 3),
-    tca_utc: isoUtc(c.tcaMs, 3),
-    los_utc: isoUtc(c.losMs, 3),
-    duration_s: round(c.durationS, 1),
-    max_elevation_deg: round(c.maxElevationDeg, 2),
-    aos_azimuth_deg: round(c.aosAzimuthDeg, 2),
-    los_azimuth_deg: round(c.losAzimuthDeg, 2),
-    aos_clipped: c.aosClipped,
-    los_clipped: c.losClipped,
-  };
-  if (c.link) {
-    rec.radio = c.link.radioId;
-    rec.volume_bits = Math.round(c.link.volumeBits);
-    rec.closed_s = round(c.link.closedS, 1);
-    rec.worst_margin_db = round(c.link.worstMarginDb, 2);
-    rec.worst_margin_utc = isoUtc(c.link.worstMarginAtMs, 3);
-    rec.worst_margin_elevation_deg = round(c.link.worstMarginElevationDeg, 2);
-    rec.peak_rate_bps = Math.round(c.link.peakRateBps);
-  }
+export function contactRecord(c: Contact): Record<string, Cell> {
+  const rec: Record<string, Cell> = {};
+  for (const col of CONTACT_COLUMNS) if (!col.link || c.link) rec[col.key] = col.value(c);
   return rec;
 }
 
-export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> = {}): string {
+/** One contact as plan.json and contacts.jsonl hold it: its record, time per MODCOD and other radios. */
+export function contactJson(c: Contact): Record<string, unknown> {
+  return {
+    ...contactRecord(c),
+    ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
+    ...(c.otherLinks
+      ? {
+          other_radios: c.otherLinks.map((l) => ({
+            radio: l.radioId,
+            volume_bits: l.volumeBits,
+            worst_margin_db: round(l.worstMarginDb, 2),
+            peak_rate_bps: Math.round(l.peakRateBps),
+          })),
+        }
+      : {}),
+  };
+}
+
+/** The contacts of the plan, made one at a time while written. */
+export const contactList = (plan: PlanResult): LazyList<Record<string, unknown>> => new LazyList(plan.contacts.length, (i) => contactJson(plan.contacts[i]!));
+
+/** plan.json in pieces (report/json-stream.ts): the same bytes as one JSON.stringify of it. */
+export function planJsonPieces(plan: PlanResult, extra: Record<string, unknown> = {}): Iterable<string> {
   const doc = {
     span: { from_utc: isoUtc(plan.span.startMs, 3), to_utc: isoUtc(plan.span.endMs, 3) },
     availability_percent: plan.availabilityPercent,
     link_step_s: plan.linkStepS,
     spacecraft: plan.spacecraft,
     stations: plan.stations,
-    contacts: plan.contacts.map((c) => ({
-      ...contactRecord(c),
-      ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
-      ...(c.otherLinks
-        ? {
-            other_radios: c.otherLinks.map((l) => ({
-              radio: l.radioId,
-              volume_bits: l.volumeBits,
-              worst_margin_db: round(l.worstMarginDb, 2),
-              peak_rate_bps: Math.round(l.peakRateBps),
-            })),
-          }
-        : {}),
-    })),
+    contacts: contactList(plan),
     ...extra,
     warnings: plan.warnings,
   };
-  return JSON.stringify(doc, null, 2) + '\n';
+  return jsonPieces(doc);
+}
+
+export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> = {}): string {
+  return [...planJsonPieces(plan, extra)].join('');
+}
+
+/** contacts.jsonl: one contact per line, the same record as in plan.json. */
+export function contactsJsonLinesPieces(plan: PlanResult): Iterable<string> {
+  return jsonLinesPieces(contactList(plan));
 }
 
 function roundRecord(r: Record<string, number>, d: number): Record<string, number | null> {
@@ -148,11 +183,36 @@ function roundRecord(r: Record<string, number>, d: number): Record<string, numbe
   return out;
 }
 
+/** A CSV field (RFC 4180): quoted when it holds a comma, a quote or a line break. */
+function csvField(v: Cell | undefined): string {
+  if (v === null || v === undefined) return '';
+  if (typeof v === 'boolean') return v ? 'true' : 'false';
+  if (typeof v === 'number') return String(v);
+  return /[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+}
+
+const EMPTY_CSV = 'station,spacecraft,aos_utc,tca_utc,los_utc,duration_s,max_elevation_deg\n';
+
+/** contacts.csv in pieces, row by row: the link columns when any contact has a link. */
+export function* planCsvPieces(plan: PlanResult): Generator<string> {
+  if (plan.contacts.length === 0) {
+    yield EMPTY_CSV;
+    return;
+  }
+  const withLink = plan.contacts.some((c) => c.link !== undefined);
+  const columns = CONTACT_COLUMNS.filter((col) => withLink || !col.link);
+  yield `${columns.map((col) => col.key).join(',')}\n`;
+  for (const c of plan.contacts) {
+    let row = '';
+    for (let j = 0; j < columns.length; j++) {
+      const col = columns[j]!;
+      if (j > 0) row += ',';
+      if (!col.link || c.link) row += csvField(col.value(c));
+    }
+    yield `${row}\n`;
+  }
+}
+
 export function renderPlanCsv(plan: PlanResult): string {
-  const records = plan.contacts.map(contactRecord);
-  const first = records[0];
-  if (!first) return 'station,spacecraft,aos_utc,tca_utc,los_utc,duration_s,max_elevation_deg\n';
-  const columns: string[] = [];
-  for (const r of records) for (const k of Object.keys(r)) if (!columns.includes(k)) columns.push(k);
-  return stringify(records, { header: true, columns, cast: { boolean: (v) => (v ? 'true' : 'false') } });
+  return [...planCsvPieces(plan)].join('');
 }
