@@ -18,6 +18,8 @@ export interface CliFigures {
   label: string;
   wallS: number;
   peakRssMb: number;
+  /** CPU time of the process, all threads, s (a fairer figure than wall time on a shared machine). */
+  cpuS: number;
   exitCode: number | null;
   stats: { contacts: number; linkSamples: number; propagations: number } | undefined;
   files: { name: string; bytes: number }[];
@@ -50,8 +52,11 @@ export function runCliPlan(label: string, files: WorkloadFiles | undefined, extr
   const stderr = r.stderr.toString();
   const m = /stats: (\d+) contacts, (\d+) link samples, (\d+) SGP4 propagations/.exec(stderr);
   let peakRssMb = Number.NaN;
+  let cpuS = Number.NaN;
   try {
-    peakRssMb = Number(readFileSync(rssFile, 'utf8')) / 1024;
+    const [rssKb, cpuUs] = readFileSync(rssFile, 'utf8').split(' ').map(Number);
+    peakRssMb = (rssKb ?? Number.NaN) / 1024;
+    cpuS = (cpuUs ?? Number.NaN) / 1e6;
   } catch {
     // the run died before its exit hook
   }
@@ -59,6 +64,7 @@ export function runCliPlan(label: string, files: WorkloadFiles | undefined, extr
     label,
     wallS,
     peakRssMb,
+    cpuS,
     exitCode: r.status,
     stats: m ? { contacts: Number(m[1]), linkSamples: Number(m[2]), propagations: Number(m[3]) } : undefined,
     files: extra.includes('--no-write') ? [] : safeFiles(outDir),
@@ -79,7 +85,7 @@ function safeFiles(dir: string): { name: string; bytes: number }[] {
 export function printFigures(f: CliFigures): void {
   const s = f.stats;
   console.log(
-    `${f.label.padEnd(40)} ${f.wallS.toFixed(2).padStart(7)} s wall  peak RSS ${f.peakRssMb.toFixed(0).padStart(5)} MB  exit ${f.exitCode}` +
+    `${f.label.padEnd(40)} ${f.wallS.toFixed(2).padStart(7)} s wall  ${f.cpuS.toFixed(2).padStart(7)} s CPU  peak RSS ${f.peakRssMb.toFixed(0).padStart(5)} MB  exit ${f.exitCode}` +
       (s ? `  ${s.contacts} contacts, ${s.linkSamples} link samples, ${s.propagations} SGP4 calls` : ''),
   );
   if (f.exitCode !== 0) console.log(`  stderr: ${f.stderrTail}`);

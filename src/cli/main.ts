@@ -26,10 +26,15 @@ export async function run(argv: string[], io: CliIo = processIo): Promise<number
     .exitOverride()
     .configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) })
     .showHelpAfterError(false);
-  registerCommands(program, io, (code) => {
-    exitCode = code;
-  });
   try {
+    await registerCommands(
+      program,
+      io,
+      (code) => {
+        exitCode = code;
+      },
+      argv,
+    );
     await program.parseAsync(argv, { from: 'user' });
     return exitCode;
   } catch (err) {
