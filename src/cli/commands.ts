@@ -20,6 +20,7 @@ const COMMANDS: Record<string, () => Promise<Register>> = {
   budget: async () => (await import('./budget.js')).registerBudget,
   size: async () => (await import('./size.js')).registerSize,
   climate: async () => (await import('./climate.js')).registerClimate,
+  merge: async () => (await import('./merge.js')).registerMerge,
 };
 
 export async function registerCommands(program: Command, io: CliIo, setExit: SetExit, argv: readonly string[] = []): Promise<void> {

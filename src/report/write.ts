@@ -23,16 +23,16 @@ export interface OutputFile {
    * The whole text, or its pieces in order (made while the file is written, so a large
    * output never exists as one string: the pieces are gathered to WRITE_CHUNK_CHARS).
    */
-  content: string | Iterable<string>;
+  content: string | Iterable<string> | Uint8Array;
 }
 
 /** Characters gathered before one write of a streamed output. */
 export const WRITE_CHUNK_CHARS = 1 << 20;
 
-/** Writes `content` to `path` (a new file), piece by piece for an iterable. */
-async function writeContent(path: string, content: string | Iterable<string>): Promise<void> {
-  if (typeof content === 'string') {
-    await writeFile(path, content, 'utf8');
+/** Writes `content` to `path` (a new file): text as UTF-8, piece by piece for an iterable; bytes as they are. */
+async function writeContent(path: string, content: OutputFile['content']): Promise<void> {
+  if (typeof content === 'string' || content instanceof Uint8Array) {
+    await writeFile(path, content);
     return;
   }
   const fh = await open(path, 'w');
