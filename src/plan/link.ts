@@ -165,14 +165,16 @@ export function prepareRadioAtStationUnnamed(
   return prepareLink(radio, station, settings, table, opts);}
 
 
-export function prepareLinks(scenario: Scenario, geometry: Geometry): LinkSetup {
+/**
+ * The prepared link of every radio of every spacecraft at every station. The atmosphere
+ * depends on the station, frequency, polarisation and availability only: spacecraft
+ * sharing a band share its tables (`tables`, which a caller may keep across calls).
+ */
+export function prepareLinks(scenario: Scenario, geometry: Geometry, tables: Map<string, AtmosphereTable> = new Map()): LinkSetup {
   const links = new Map<string, PreparedLink>();
   const otherLinks: Map<string, PreparedLink>[] = [];
   const warnings: string[] = [];
   const warnedRain = new Set<string>();
-  // The atmosphere depends on the station, frequency, polarisation and availability only:
-  // spacecraft sharing a band share its tables.
-  const tables = new Map<string, AtmosphereTable>();
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
     for (const sc of scenario.spacecraft) {

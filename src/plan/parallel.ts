@@ -1,8 +1,10 @@
 /**
- * The plan pipeline spread over worker threads, one group of spacecraft per thread
- * (work is independent per spacecraft: DESIGN "Scaling"). The merged result is the
- * same as runPlan's: contacts in the same order (station, AOS, spacecraft), warnings
- * deduplicated in the order runPlan gives them, stats summed.
+ * The plan pipeline spread over worker threads (work is independent per spacecraft:
+ * DESIGN "Scaling"). The fleet is cut into batches of consecutive spacecraft, handed out
+ * to the workers as they come free (a pool sized to the machine), each batch's result
+ * sent back as soon as it is done; the merged result is the same as runPlan's: contacts
+ * in the same order (station, AOS, spacecraft), warnings deduplicated in the order runPlan
+ * gives them (batches merged in fleet order), stats summed.
  * Threads are used only from the compiled program (a worker needs a .js file), one
  * per MIN_SPACECRAFT_PER_THREAD spacecraft; from the compiled program even a
  * small fleet runs on one worker, so the main thread stays free to act on a
@@ -13,23 +15,31 @@
 import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { runPlan, planResult, type PlanOptions } from './run.js';
-import type { Scenario, Span } from '../scenario/types.js';
+import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import type { PlanResult } from './types.js';
 import { reviveError, type SerializedError } from '../errors.js';
 
-/** What a plan worker posts back: its result, or its error as data. */
-export type WorkerReply = { ok: true; result: PlanResult } | { ok: false; error: SerializedError };
+/** A batch of spacecraft sent to a worker. */
+export interface BatchJob {
+  batch: number;
+  spacecraft: Spacecraft[];
+}
+
+/** What a plan worker posts back for a batch: its result, or its error as data. */
+export type WorkerReply = { ok: true; batch: number; result: PlanResult } | { ok: false; error: SerializedError };
 
 /** Workers running now (terminated together when one fails). */
 const running = new Set<Worker>();
 
-/** Stops every plan worker still running (a failed group, or an interrupted run). */
+/** Stops every plan worker still running (a failed batch, or an interrupted run). */
 export function terminateWorkers(): void {
   for (const w of running) void w.terminate();
   running.clear();
 }
 
 export const MIN_SPACECRAFT_PER_THREAD = 4;
+/** Most spacecraft in one batch (bounds what a worker holds and sends at once). */
+export const MAX_BATCH_SPACECRAFT = 16;
 
 /** Threads worth starting for this many spacecraft on this machine. */
 export function threadsFor(spacecraftCount: number, maxThreads = availableParallelism()): number {
@@ -46,38 +56,60 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
   const url = workerUrl();
   if (url === undefined) return runPlan(scenario, span, opts);
   const { onProgress, ...plain } = opts;
-  const groups: Scenario[] = [];
-  for (let g = 0; g < threads; g++) {
-    groups.push({ ...scenario, spacecraft: scenario.spacecraft.filter((_, i) => i % threads === g) });
-  }
+  // batches small enough to spread evenly (several per thread), at most MAX_BATCH_SPACECRAFT
+  const size = Math.max(1, Math.min(MAX_BATCH_SPACECRAFT, Math.ceil(scenario.spacecraft.length / (4 * threads))));
+  const batches: Spacecraft[][] = [];
+  for (let i = 0; i < scenario.spacecraft.length; i += size) batches.push(scenario.spacecraft.slice(i, i + size));
+  if (batches.length === 0) batches.push([]);
+  const parts: PlanResult[] = new Array<PlanResult>(batches.length);
+  let next = 0;
   let done = 0;
-  onProgress?.(0, threads, 'threads');
-  let parts: PlanResult[];
+  onProgress?.(0, batches.length, 'batches');
+  const base: Scenario = { ...scenario, spacecraft: [] };
   try {
-    parts = await Promise.all(
-      groups.map(
-        (group) =>
-          new Promise<PlanResult>((resolve, reject) => {
-            const w = new Worker(url, { workerData: { scenario: group, span, opts: plain } });
-            running.add(w);
-            w.once('message', (r: WorkerReply) => {
-              if (!r.ok) {
-                reject(reviveError(r.error));
-                return;
-              }
-              onProgress?.(++done, threads, 'threads');
-              resolve(r.result);
-            });
-            w.once('error', reject);
-            w.once('exit', (code) => {
-              running.delete(w);
-              if (code !== 0) reject(new Error(`plan worker exited with code ${code}`));
-            });
-          }),
-      ),
-    );
+    await new Promise<void>((resolve, reject) => {
+      let failed = false;
+      const fail = (err: unknown): void => {
+        if (failed) return;
+        failed = true;
+        reject(err);
+      };
+      const workers = Math.min(threads, batches.length);
+      for (let t = 0; t < workers; t++) {
+        const w = new Worker(url, { workerData: { scenario: base, span, opts: plain } });
+        running.add(w);
+        let retired = false;
+        const feed = (): void => {
+          if (next < batches.length) {
+            const job: BatchJob = { batch: next, spacecraft: batches[next]! };
+            next++;
+            w.postMessage(job);
+          } else {
+            retired = true; // nothing left to hand out
+            running.delete(w);
+            void w.terminate();
+          }
+        };
+        w.on('message', (r: WorkerReply) => {
+          if (!r.ok) {
+            fail(reviveError(r.error));
+            return;
+          }
+          parts[r.batch] = r.result;
+          onProgress?.(++done, batches.length, 'batches');
+          if (done === batches.length) resolve();
+          feed();
+        });
+        w.once('error', fail);
+        w.once('exit', (code) => {
+          running.delete(w);
+          if (!retired) fail(new Error(`plan worker exited with code ${code} before its work was done`));
+        });
+        feed();
+      }
+    });
   } catch (err) {
-    terminateWorkers(); // the first error wins; the other groups' work is moot
+    terminateWorkers(); // the first error wins; the other batches' work is moot
     throw err;
   }
   return mergePlans(scenario, span, parts);

@@ -7,6 +7,7 @@ import type { Scenario, Span } from '../scenario/types.js';
 import { prepareGeometry, findContacts } from './contacts.js';
 import { prepareLinks, integrateContacts, integrateOtherRadios, DEFAULT_LINK_STEP_S } from './link.js';
 import type { PlanResult } from './types.js';
+import type { AtmosphereTable } from '../link/atmosphere/types.js';
 
 export interface PlanOptions {
   linkStepS?: number;
@@ -17,7 +18,8 @@ export interface PlanOptions {
   onProgress?: (done: number, total: number, label: string) => void;
 }
 
-export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}): PlanResult {
+/** `tables`: atmosphere tables kept across calls (a worker's batches of one run share them). */
+export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, tables?: Map<string, AtmosphereTable>): PlanResult {
   const geometry = prepareGeometry(scenario, span);
   const total = opts.geometryOnly ? 1 : 2;
   opts.onProgress?.(0, total, 'contact search');
@@ -28,7 +30,7 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}):
   let propagations = found.propagations;
   const linkStepS = opts.linkStepS ?? DEFAULT_LINK_STEP_S;
   if (!opts.geometryOnly) {
-    const setup = prepareLinks(scenario, geometry);
+    const setup = prepareLinks(scenario, geometry, tables);
     warnings.push(...setup.warnings);
     const stats = integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);
     const other = integrateOtherRadios(found.contacts, geometry, setup, scenario.link, linkStepS);
