@@ -38,7 +38,7 @@ import type { LinkSettings, Radio, Scenario, Station } from '../scenario/types.j
 import type { Geometry } from './contacts.js';
 import { ModelRangeError } from '../errors.js';
 import { feedFor, stationThroughFeed } from '../scenario/feeds.js';
-import { VOLUME_BIN_MS, type Contact, type ContactLink } from './types.js';
+import { VOLUME_BIN_MS, type Contact, type ContactLink, type WarningOrigin } from './types.js';
 
 /** Frequency above which a missing rain climate is worth a warning, Hz. */
 export const RAIN_WARNING_ABOVE_HZ = 3e9;
@@ -55,6 +55,8 @@ export interface LinkSetup {
   /** The other radios' links: index r - 1 holds radios[r]'s, by `${spacecraftId}|${stationId}`. */
   otherLinks?: Map<string, PreparedLink>[];
   warnings: string[];
+  /** warningOrigins[i]: the station, spacecraft and radio index that raised warnings[i]. */
+  warningOrigins?: WarningOrigin[];
 }
 
 export const linkKey = (spacecraftId: string, stationId: string) => `${spacecraftId}|${stationId}`;
@@ -174,6 +176,7 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry, tables: Map
   const links = new Map<string, PreparedLink>();
   const otherLinks: Map<string, PreparedLink>[] = [];
   const warnings: string[] = [];
+  const warningOrigins: WarningOrigin[] = [];
   const warnedRain = new Set<string>();
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
@@ -181,12 +184,14 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry, tables: Map
       sc.radios.forEach((radio, r) => {
         if (!radioHeardAt(station, radio)) {
           warnings.push(noFeedWarning(station, sc.id, radio));
+          warningOrigins.push({ stationId: station.id, spacecraftId: sc.id, radioIndex: r });
           return;
         }
         const input = atmosphereInputFor(station, radio, scenario.link);
         if (!rainModelled(input) && radio.frequencyHz > RAIN_WARNING_ABOVE_HZ && !warnedRain.has(station.id)) {
           warnedRain.add(station.id);
           warnings.push(`${station.id}: no rain climate (rainRate001MmH, rainHeightKm); the rain term is not modelled above ${RAIN_WARNING_ABOVE_HZ / 1e9} GHz`);
+          warningOrigins.push({ stationId: station.id, spacecraftId: sc.id, radioIndex: r });
         }
         const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station), tables);
         if (r === 0) links.set(linkKey(sc.id, station.id), link);
@@ -197,7 +202,7 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry, tables: Map
       });
     }
   });
-  return { links, ...(otherLinks.length > 0 ? { otherLinks } : {}), warnings };
+  return { links, ...(otherLinks.length > 0 ? { otherLinks } : {}), warnings, warningOrigins };
 }
 
 /**

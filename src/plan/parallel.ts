@@ -16,7 +16,7 @@ import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { runPlan, planResult, type PlanOptions } from './run.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
-import type { PlanResult } from './types.js';
+import type { PlanResult, WarningOrigin } from './types.js';
 import { reviveError, type SerializedError } from '../errors.js';
 
 /** A batch of spacecraft sent to a worker. */
@@ -96,7 +96,8 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
             return;
           }
           parts[r.batch] = r.result;
-          onProgress?.(++done, batches.length, 'batches');
+          done++; // not inside onProgress?.(...): its arguments are skipped without a hook
+          onProgress?.(done, batches.length, 'batches');
           if (done === batches.length) resolve();
           feed();
         });
@@ -126,21 +127,46 @@ export function mergePlans(scenario: Scenario, span: Span, parts: PlanResult[]):
       a.aosMs - b.aosMs ||
       (scOrder.get(a.spacecraftId) ?? 0) - (scOrder.get(b.spacecraftId) ?? 0),
   );
-  // runPlan's order: per-spacecraft warnings (spacecraft order), then link warnings (station order)
-  const scWarn: string[][] = scenario.spacecraft.map(() => []);
-  const other: string[] = [];
-  for (const p of parts) {
-    for (const w of p.warnings) {
-      const k = scOrder.get(w.slice(0, w.indexOf(':')));
-      if (k !== undefined) scWarn[k]!.push(w);
-      else if (!other.includes(w)) other.push(w);
-    }
-  }
-  other.sort((a, b) => (stationOrder.get(a.slice(0, a.indexOf(':'))) ?? 0) - (stationOrder.get(b.slice(0, b.indexOf(':'))) ?? 0));
+  const { warnings, origins } = mergeWarnings(scenario, parts);
   const stats = { propagations: 0, linkSamples: 0 };
   for (const p of parts) {
     stats.propagations += p.stats.propagations;
     stats.linkSamples += p.stats.linkSamples;
   }
-  return planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, [...scWarn.flat(), ...other], stats);
+  return planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, warnings, stats, origins);
+}
+
+/**
+ * The parts' warnings in runPlan's order, each said once: the search's (by spacecraft,
+ * in fleet order), then the link set-up's (by station, then spacecraft, then radio: a
+ * warning raised in several parts, such as a station's missing rain climate, stands where
+ * its earliest origin puts it). Parts without origins (none of ours) fall back to the
+ * id before the first ":" of the text.
+ */
+function mergeWarnings(scenario: Scenario, parts: readonly PlanResult[]): { warnings: string[]; origins: WarningOrigin[] } {
+  const stationOrder = new Map(scenario.stations.map((s, i) => [s.id, i]));
+  const scOrder = new Map(scenario.spacecraft.map((s, i) => [s.id, i]));
+  const all: { text: string; origin: WarningOrigin; key: [number, number, number, number] }[] = [];
+  for (const p of parts) {
+    p.warnings.forEach((text, i) => {
+      const prefix = text.slice(0, text.indexOf(':'));
+      const origin: WarningOrigin = p.warningOrigins?.[i] ?? (scOrder.has(prefix) ? { spacecraftId: prefix } : { stationId: prefix });
+      const sc = origin.spacecraftId !== undefined ? (scOrder.get(origin.spacecraftId) ?? 0) : 0;
+      const key: [number, number, number, number] =
+        origin.stationId === undefined ? [0, sc, 0, 0] : [1, stationOrder.get(origin.stationId) ?? 0, sc, origin.radioIndex ?? 0];
+      all.push({ text, origin, key });
+    });
+  }
+  // a stable sort: one origin's warnings keep the order their part gave them
+  all.sort((a, b) => a.key[0] - b.key[0] || a.key[1] - b.key[1] || a.key[2] - b.key[2] || a.key[3] - b.key[3]);
+  const seen = new Set<string>();
+  const warnings: string[] = [];
+  const origins: WarningOrigin[] = [];
+  for (const w of all) {
+    if (seen.has(w.text)) continue;
+    seen.add(w.text);
+    warnings.push(w.text);
+    origins.push(w.origin);
+  }
+  return { warnings, origins };
 }

@@ -26,19 +26,21 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, 
   const found = findContacts(scenario, geometry, span, opts.search ?? DEFAULT_SEARCH);
   opts.onProgress?.(1, total, opts.geometryOnly ? 'done' : 'link budgets');
   const warnings = [...found.warnings];
+  const origins = [...found.warningOrigins];
   let linkSamples = 0;
   let propagations = found.propagations;
   const linkStepS = opts.linkStepS ?? DEFAULT_LINK_STEP_S;
   if (!opts.geometryOnly) {
     const setup = prepareLinks(scenario, geometry, tables);
-    warnings.push(...setup.warnings);
+    for (const w of setup.warnings) warnings.push(w);
+    for (const o of setup.warningOrigins ?? []) origins.push(o);
     const stats = integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);
     const other = integrateOtherRadios(found.contacts, geometry, setup, scenario.link, linkStepS);
     linkSamples = stats.linkSamples + other.linkSamples;
     propagations += stats.propagations + other.propagations;
     opts.onProgress?.(2, total, 'done');
   }
-  return planResult(scenario, span, linkStepS, found.contacts, warnings, { propagations, linkSamples });
+  return planResult(scenario, span, linkStepS, found.contacts, warnings, { propagations, linkSamples }, origins);
 }
 
 /** A PlanResult from its parts (shared with sizing, which re-runs only the link stage). */
@@ -49,6 +51,7 @@ export function planResult(
   contacts: PlanResult['contacts'],
   warnings: string[],
   stats: PlanResult['stats'],
+  warningOrigins?: PlanResult['warningOrigins'],
 ): PlanResult {
   return {
     span,
@@ -58,6 +61,7 @@ export function planResult(
     stations: scenario.stations.map((s) => ({ id: s.id, name: s.name, timeZone: s.timeZone })),
     contacts,
     warnings,
+    ...(warningOrigins && warningOrigins.length === warnings.length ? { warningOrigins } : {}),
     stats,
   };
 }

@@ -40,6 +40,10 @@ describe('single thread, worker threads, shards + merge', () => {
     if (!existsSync(distMain)) throw new Error('build first: npm run build');
     const work = mkdtempSync(join(tmpdir(), 'pb-shard-'));
     const files = writeConstellation(join(work, 'in'), 10, 4, 1);
+    // one station hears S band only: a "no feed" warning per spacecraft, whose order the merge must keep
+    const network = JSON.parse(readFileSync(files.networkFile, 'utf8')) as { stations: Record<string, unknown>[] };
+    network.stations[1]!.feeds = [{ id: 'S-ONLY', band: 'S' }];
+    writeFileSync(files.networkFile, JSON.stringify(network));
     const scenarioFlags = ['--spacecraft', files.spacecraftFile, '--network', files.networkFile];
     const single = join(work, 'single');
     const code = await run(['plan', ...scenarioFlags, '--out', single, '--format', 'csv'], { out: () => {}, err: () => {}, isTty: false, nowMs: () => 0 });
@@ -59,6 +63,8 @@ describe('single thread, worker threads, shards + merge', () => {
     expect(m.code, m.err).toBe(0);
     const a = listing(single);
     expect(a.size).toBeGreaterThan(5);
+    const warnings = (JSON.parse(a.get('plan.json')!.toString('utf8')) as { warnings: string[] }).warnings;
+    expect(warnings.filter((w) => /^GS-01: no feed covers/.test(w))).toHaveLength(10);
     expect([...a.keys()]).toContain('contacts.jsonl');
     for (const other of [listing(threads), listing(merged)]) {
       expect([...other.keys()].sort()).toEqual([...a.keys()].sort());
