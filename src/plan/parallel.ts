@@ -18,6 +18,7 @@ import { runPlan, planResult, type PlanOptions } from './run.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import type { PlanResult, WarningOrigin } from './types.js';
 import { reviveError, type SerializedError } from '../errors.js';
+import { runningWorkers, terminateWorkers } from './workers.js';
 
 /** A batch of spacecraft sent to a worker. */
 export interface BatchJob {
@@ -28,14 +29,6 @@ export interface BatchJob {
 /** What a plan worker posts back for a batch: its result, or its error as data. */
 export type WorkerReply = { ok: true; batch: number; result: PlanResult } | { ok: false; error: SerializedError };
 
-/** Workers running now (terminated together when one fails). */
-const running = new Set<Worker>();
-
-/** Stops every plan worker still running (a failed batch, or an interrupted run). */
-export function terminateWorkers(): void {
-  for (const w of running) void w.terminate();
-  running.clear();
-}
 
 export const MIN_SPACECRAFT_PER_THREAD = 4;
 /** Most spacecraft in one batch (bounds what a worker holds and sends at once). */
@@ -66,6 +59,9 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
   let done = 0;
   onProgress?.(0, batches.length, 'batches');
   const base: Scenario = { ...scenario, spacecraft: [] };
+  const ids = new Map<string, string>();
+  for (const x of [...scenario.spacecraft, ...scenario.stations]) ids.set(x.id, x.id);
+  for (const sc of scenario.spacecraft) for (const r of sc.radios) ids.set(r.id, r.id);
   try {
     await new Promise<void>((resolve, reject) => {
       let failed = false;
@@ -77,7 +73,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
       const workers = Math.min(threads, batches.length);
       for (let t = 0; t < workers; t++) {
         const w = new Worker(url, { workerData: { scenario: base, span, opts: plain } });
-        running.add(w);
+        runningWorkers.add(w);
         let retired = false;
         const feed = (): void => {
           if (next < batches.length) {
@@ -86,7 +82,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
             w.postMessage(job);
           } else {
             retired = true; // nothing left to hand out
-            running.delete(w);
+            runningWorkers.delete(w);
             void w.terminate();
           }
         };
@@ -95,7 +91,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
             fail(reviveError(r.error));
             return;
           }
-          parts[r.batch] = r.result;
+          parts[r.batch] = withSharedIds(r.result, ids);
           done++; // not inside onProgress?.(...): its arguments are skipped without a hook
           onProgress?.(done, batches.length, 'batches');
           if (done === batches.length) resolve();
@@ -103,7 +99,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
         });
         w.once('error', fail);
         w.once('exit', (code) => {
-          running.delete(w);
+          runningWorkers.delete(w);
           if (!retired) fail(new Error(`plan worker exited with code ${code} before its work was done`));
         });
         feed();
@@ -114,6 +110,21 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
     throw err;
   }
   return mergePlans(scenario, span, parts);
+}
+
+/**
+ * The result with its ids pointing at the scenario's own strings: a result that crossed
+ * threads carries a copy of every id in every contact, a million copies for a large fleet.
+ */
+function withSharedIds(result: PlanResult, ids: ReadonlyMap<string, string>): PlanResult {
+  const shared = (id: string): string => ids.get(id) ?? id;
+  for (const c of result.contacts) {
+    c.spacecraftId = shared(c.spacecraftId);
+    c.stationId = shared(c.stationId);
+    if (c.link) c.link.radioId = shared(c.link.radioId);
+    for (const l of c.otherLinks ?? []) l.radioId = shared(l.radioId);
+  }
+  return result;
 }
 
 /** Merges per-group results into the single-thread order. */
