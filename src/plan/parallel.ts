@@ -7,8 +7,8 @@
  * gives them (batches merged in fleet order), stats summed.
  * Threads are used only from the compiled program (a worker needs a .js file), one
  * per MIN_SPACECRAFT_PER_THREAD spacecraft; from the compiled program even a
- * small fleet runs on one worker, so the main thread stays free to act on a
- * signal (Ctrl-C stops the run at once: src/cli/signals.ts). Errors come back
+ * small fleet runs on one worker (except a few spacecraft without radios: inlineWorthy),
+ * so the main thread stays free to act on a signal (Ctrl-C stops the run at once: src/cli/signals.ts). Errors come back
  * as data and are re-raised as their class (ScenarioError, ModelRangeError ...).
  * Elsewhere (tests on the sources) this is runPlan.
  */
@@ -39,6 +39,16 @@ export function threadsFor(spacecraftCount: number, maxThreads = availableParall
   return Math.max(1, Math.min(maxThreads, Math.floor(spacecraftCount / MIN_SPACECRAFT_PER_THREAD)));
 }
 
+/**
+ * A few spacecraft without radios (geometry only) take less time to plan than a worker
+ * takes to start: they run on the main thread (a signal is acted on right after).
+ */
+export const INLINE_MAX_SPACECRAFT = 8;
+
+export function inlineWorthy(scenario: Scenario): boolean {
+  return scenario.spacecraft.length <= INLINE_MAX_SPACECRAFT && scenario.spacecraft.every((s) => s.radios.length === 0);
+}
+
 function workerUrl(): URL | undefined {
   const url = new URL('./plan-worker.js', import.meta.url);
   return import.meta.url.endsWith('.js') ? url : undefined;
@@ -47,7 +57,7 @@ function workerUrl(): URL | undefined {
 export async function runPlanParallel(scenario: Scenario, span: Span, opts: PlanOptions = {}, maxThreads?: number): Promise<PlanResult> {
   const threads = threadsFor(scenario.spacecraft.length, maxThreads);
   const url = workerUrl();
-  if (url === undefined) return runPlan(scenario, span, opts);
+  if (url === undefined || inlineWorthy(scenario)) return runPlan(scenario, span, opts);
   const { onProgress, ...plain } = opts;
   // batches small enough to spread evenly (several per thread), at most MAX_BATCH_SPACECRAFT
   const size = Math.max(1, Math.min(MAX_BATCH_SPACECRAFT, Math.ceil(scenario.spacecraft.length / (4 * threads))));
