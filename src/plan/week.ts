@@ -11,6 +11,7 @@ import { simulateRecorders, type RecorderResult } from './recorder.js';
 import { scheduleContacts, scheduledPlan, type ScheduleResult } from './schedule.js';
 import { highestVolumeContacts, seriesForContacts, type ContactSeries } from './series.js';
 import type { PlanResult } from './types.js';
+import { uniqueVolumes } from './unique-volume.js';
 
 export interface WeekOptions {
   dayMode: DayMode;
@@ -42,8 +43,12 @@ export function planWeek(scenario: Scenario, unscheduled: PlanResult, opts: Week
   const daily = dailyTotals(plan, opts.dayMode);
   // with a recorder, delivered = what left the recorder; the link volume is capacity
   const delivered = recorders ? new Map(recorders.tracks.map((t) => [t.spacecraftId, t.downlinkedBits])) : undefined;
-  const totals = spacecraftTotals(plan, delivered);
-  const allStations = opts.dayMode.kind === 'utc' ? allStationsDaily(plan, daily) : undefined;
+  const unique = uniqueVolumes(
+    plan.spacecraft.map((s) => s.id),
+    plan.contacts,
+  );
+  const totals = spacecraftTotals(plan, delivered, unique);
+  const allStations = opts.dayMode.kind === 'utc' ? allStationsDaily(plan, daily, unique) : undefined;
   return { unscheduled, plan, dayMode: opts.dayMode, daily, totals, allStations, schedule, recorders };
 }
 
