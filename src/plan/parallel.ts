@@ -8,8 +8,8 @@
  * Threads are used only from the compiled program (a worker needs a .js file), one
  * per MIN_SPACECRAFT_PER_THREAD spacecraft; from the compiled program even a
  * small fleet runs on one worker (except a few spacecraft without radios: inlineWorthy),
- * so the main thread stays free to act on a signal (Ctrl-C stops the run at once: src/cli/signals.ts). Errors come back
- * as data and are re-raised as their class (ScenarioError, ModelRangeError ...).
+ * so the main thread stays free to act on a signal (Ctrl-C stops the run at once:
+ * src/cli/signals.ts). Errors come back as data and are re-raised as their class (ScenarioError, ModelRangeError ...).
  * Elsewhere (tests on the sources) this is runPlan.
  */
 import { Worker } from 'node:worker_threads';
@@ -28,7 +28,6 @@ export interface BatchJob {
 
 /** What a plan worker posts back for a batch: its result, or its error as data. */
 export type WorkerReply = { ok: true; batch: number; result: PlanResult } | { ok: false; error: SerializedError };
-
 
 export const MIN_SPACECRAFT_PER_THREAD = 4;
 /** Most spacecraft in one batch (bounds what a worker holds and sends at once). */
