@@ -3,7 +3,7 @@
  * the terminal output, the warnings, and the files under --out, each made in pieces while
  * it is written (report/write.ts: all or nothing).
  */
-import { renderPlanTable, planJsonPieces, planCsvPieces, contactsJsonLinesPieces } from '../report/plan.js';
+import { planTablePieces, planJsonPieces, planCsvPieces, contactsJsonLinesPieces } from '../report/plan.js';
 import { writeOutputs, type OutputFile } from '../report/write.js';
 import { allStationsDayRecord, dailyRecord, renderDailyCsv, renderDailyTable, spacecraftTotalRecord } from '../report/daily.js';
 import { calendarFiles } from '../report/calendar.js';
@@ -32,7 +32,10 @@ export async function emitWeek(io: CliIo, opts: CommonOptions, week: Week, repor
   };
   if (opts.format === 'json') outPieces(io, planJsonPieces(plan, jsonExtra));
   else if (opts.format === 'csv') outPieces(io, planCsvPieces(plan));
-  else io.out(renderPlanTable(plan, opts.zone) + '\n' + renderDailyTable(daily, dayMode, totals, allStations));
+  else {
+    outPieces(io, planTablePieces(plan, opts.zone));
+    io.out('\n' + renderDailyTable(daily, dayMode, totals, allStations));
+  }
   if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone, recorders) + '\n' + renderRecorderTable(recorders));
   for (const w of plan.warnings) io.err(`warning: ${w}\n`);
   if (stats) io.err(`stats: ${plan.contacts.length} contacts, ${plan.stats.linkSamples} link samples, ${plan.stats.propagations} SGP4 propagations\n`);

@@ -17,18 +17,22 @@ function timeText(tMs: number, zone: string | undefined): string {
 }
 
 export function renderPlanTable(plan: PlanResult, zone?: string): string {
-  const parts: string[] = [];
+  return [...planTablePieces(plan, zone)].join('');
+}
+
+/** The terminal table in pieces, one station's table at a time (each piece ends its line). */
+export function* planTablePieces(plan: PlanResult, zone?: string): Generator<string> {
   const hasLink = plan.contacts.some((c) => c.link !== undefined);
-  parts.push(
+  yield* lines(
     `Contact plan ${isoUtc(plan.span.startMs, 0)} .. ${isoUtc(plan.span.endMs, 0)}` +
       (hasLink ? `, link at ${plan.availabilityPercent} % availability, sampled every ${plan.linkStepS} s` : ''),
   );
   for (const st of plan.stations) {
     const rows = plan.contacts.filter((c) => c.stationId === st.id);
-    parts.push('');
-    parts.push(`${st.id}  ${st.name}  (${st.timeZone})`);
+    yield* lines('');
+    yield* lines(`${st.id}  ${st.name}  (${st.timeZone})`);
     if (rows.length === 0) {
-      parts.push('  no contacts in the window');
+      yield* lines('  no contacts in the window');
       continue;
     }
     const cols: Column[] = [
@@ -56,23 +60,24 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
       if (hasLink) r.push(c.link ? formatBits(c.link.volumeBits) : '-', c.link ? fixed(c.link.worstMarginDb, 1) : '-');
       return r;
     });
-    parts.push(indent(renderTable(cols, body)));
-    parts.push(`  ${summaryLine(rows, hasLink)}`);
+    yield* lines(indent(renderTable(cols, body)));
+    yield* lines(`  ${summaryLine(rows, hasLink)}`);
   }
   const clipped = plan.contacts.some((c) => c.aosClipped || c.losClipped);
-  parts.push('');
-  parts.push(`All stations (station sum): ${summaryLine(plan.contacts, hasLink)}`);
+  yield* lines('');
+  yield* lines(`All stations (station sum): ${summaryLine(plan.contacts, hasLink)}`);
   const once = uniqueVolumes(
     plan.spacecraft.map((s) => s.id),
     plan.contacts,
   );
-  parts.push(
+  yield* lines(
     `Counted once per spacecraft radio (best station at each instant, union of windows): contact time ${formatDuration(once.reduce((s, u) => s + u.contactTimeS, 0))}` +
       (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : ''),
   );
-  if (clipped) parts.push('"<" / ">": window cut by the start / end of the span.');
-  return parts.join('\n') + '\n';
+  if (clipped) yield* lines('"<" / ">": window cut by the start / end of the span.');
 }
+
+const lines = (...text: string[]): string[] => text.map((l) => `${l}\n`);
 
 function summaryLine(rows: Contact[], hasLink: boolean): string {
   const totalS = rows.reduce((s, c) => s + c.durationS, 0);
