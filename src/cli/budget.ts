@@ -7,7 +7,7 @@ import { singleBudget, type SingleBudgetRequest } from '../plan/single.js';
 import { renderBudgetTable, renderBudgetJson } from '../report/budget.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
-import { numberFlag, readGeometryOverrides } from './options.js';
+import { AVAILABILITY_HELP, availabilityFlag, numberFlag, readGeometryOverrides, withAvailability } from './options.js';
 
 
 
@@ -23,6 +23,7 @@ interface Raw {
   pointingLossDb?: string;
   extraLossDb?: string;
   gOverTDbK?: string;
+  availability?: string;
   format: 'table' | 'json';
 }
 
@@ -40,11 +41,13 @@ export function registerBudget(program: Command, io: CliIo, setExit: SetExit): v
     .option('--atmosphere-db <dB>', 'replace the ITU-R atmosphere by this total, dB (to follow a handbook budget); the sky noise follows from it (ITU-R P.618 sec. 3)')
     .option('--pointing-loss-db <dB>', 'replace the computed pointing loss, dB')
     .option('--extra-loss-db <dB>', 'other losses to include, dB (e.g. a receive feeder loss)')
+    .option('--availability <percent>', AVAILABILITY_HELP)
     .option('--g-over-t-db-k <dB/K>', "replace the computed G/T by this figure, dB/K (a handbook's G/T for the budget's conditions)")
     .addOption(new Option('--format <format>', 'output format').choices(['table', 'json']).default('table'))
     .action((raw: Raw) => {
       const demo = demoFiles();
-      const scenario = loadScenario({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile });
+      const availability = availabilityFlag(raw.availability);
+      const scenario = withAvailability(loadScenario({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile }), availability);
       const req: SingleBudgetRequest = { spacecraftId: raw.spacecraftId, stationId: raw.stationId };
       if (raw.radioId !== undefined) req.radioId = raw.radioId;
       Object.assign(req, readGeometryOverrides(raw));

@@ -10,7 +10,7 @@ import { runPlanParallel } from '../plan/parallel.js';
 import { marginGatePasses, marginRows } from '../plan/margin.js';
 import { renderMarginCsv, renderMarginJson, renderMarginTable, type MarginReport } from '../report/margin.js';
 import { writeOutputs } from '../report/write.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
@@ -22,7 +22,7 @@ export function registerMargin(program: Command, io: CliIo, setExit: SetExit): v
   ).action(async (raw) => {
     const opts = readCommonOptions(raw);
     prepareOutput(opts, io, ['margin.json', 'margin.csv']);
-    const scenario = loadScenario(opts.files);
+    const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
     const span = spanFor(opts, scenario, io);
     assertPreflight(scenario, span); // file and field of a model-range problem, before any work
     const plan = await withNamedProblems(scenario, span, () => runPlanParallel(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}));

@@ -1,7 +1,8 @@
 /**
  * `passbudget merge DIR...`: combines the partial results of `plan --shard K/N` (every
  * shard 1..N, each once) into exactly the outputs of the single run. It takes the same
- * scenario flags as the shards did (spacecraft and network files, --from, --days, --step)
+ * scenario flags as the shards did (spacecraft and network files, --from, --days, --step,
+ * --availability)
  * and plan's output flags; each shard is checked against them (span, step, the spacecraft
  * its number holds) before anything is written.
  */
@@ -16,7 +17,7 @@ import { loadScenario } from '../scenario/load.js';
 import { packageVersion } from '../scenario/paths.js';
 import { readShardFile, shardPaths, type ShardFile } from '../scenario/shard-file.js';
 import { isoUtc } from '../time/format.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
 import { emitWeek, PLAN_OUTPUTS } from './plan-output.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
@@ -35,6 +36,9 @@ function checkShards(shards: readonly ShardFile[], scenario: Scenario, span: Spa
     seen.set(h.shard.index, s.file);
     if (h.fromMs !== span.startMs || h.toMs !== span.endMs) {
       problems.push({ file: s.file, path: 'span', message: `planned ${isoUtc(h.fromMs, 0)} .. ${isoUtc(h.toMs, 0)}; merge was given ${isoUtc(span.startMs, 0)} .. ${isoUtc(span.endMs, 0)} (give merge the same --from and --days)` });
+    }
+    if (h.availabilityPercent !== scenario.link.availabilityPercent) {
+      problems.push({ file: s.file, path: 'availabilityPercent', message: `planned at ${h.availabilityPercent} % availability; merge was given ${scenario.link.availabilityPercent} % (give merge the same --availability)` });
     }
     if (h.linkStepS !== linkStepS) problems.push({ file: s.file, path: 'linkStepS', message: `sampled the link every ${h.linkStepS} s; merge was given ${linkStepS} s (give merge the same --step)` });
     const expected = shardScenario(scenario, h.shard).spacecraft.map((sc) => sc.id);
@@ -63,7 +67,7 @@ export function registerMerge(program: Command, io: CliIo, setExit: SetExit): vo
       const opts = readCommonOptions(raw);
       prepareOutput(opts, io, PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
-      const scenario = loadScenario(opts.files);
+      const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
       const span = spanFor(opts, scenario, io);
       const version = packageVersion();
       const shards = shardPaths(paths).map((f) => readShardFile(f, version));

@@ -45,6 +45,22 @@ export interface CommonOptions {
   format: Format;
   zone?: string;
   write: boolean;
+  /** --availability: the link availability, % (replaces the spacecraft file's). */
+  availabilityPercent?: number;
+}
+
+/** Help text of --availability (plan, trace, margin, size, budget). */
+export const AVAILABILITY_HELP = "link availability, % of an average year the budget holds (90..99.999; default: the spacecraft file's link.availabilityPercent, else 99.5)";
+
+/** Reads --availability (UsageError when outside what the spacecraft file may hold). */
+export function availabilityFlag(text: string | undefined): number | undefined {
+  return decimalFlag('--availability', text, 90, 99.999, 'a percentage in 90..99.999');
+}
+
+/** The scenario with --availability applied (the flag wins over the spacecraft file). */
+export function withAvailability(scenario: Scenario, availabilityPercent: number | undefined): Scenario {
+  if (availabilityPercent !== undefined) scenario.link = { ...scenario.link, availabilityPercent };
+  return scenario;
 }
 
 export function addCommonOptions(cmd: Command): Command {
@@ -57,6 +73,7 @@ export function addCommonOptions(cmd: Command): Command {
     .option('--out <dir>', 'output folder', 'out')
     .addOption(new Option('--format <format>', 'terminal output format').choices(['table', 'json', 'csv']).default('table'))
     .option('--zone <iana>', 'show times and days in this IANA time zone')
+    .option('--availability <percent>', AVAILABILITY_HELP)
     .option('--no-write', 'print only; write no files under --out');
 }
 
@@ -70,6 +87,7 @@ interface RawOptions {
   format: Format;
   zone?: string;
   write: boolean;
+  availability?: string;
 }
 
 export function readCommonOptions(raw: RawOptions): CommonOptions {
@@ -95,6 +113,8 @@ export function readCommonOptions(raw: RawOptions): CommonOptions {
     if (s === undefined || s < 0.1 || s > 3600) throw new UsageError(`--step: "${raw.step}" must be a duration from 0.1s to 1h (e.g. 1s, 10s, 1m)`);
     opts.stepS = s;
   }
+  const availability = availabilityFlag(raw.availability);
+  if (availability !== undefined) opts.availabilityPercent = availability;
   if (raw.zone !== undefined) {
     if (!IANAZone.isValidZone(raw.zone)) throw new UsageError(`--zone: "${raw.zone}" is not an IANA time zone (e.g. Europe/Oslo, UTC)`);
     opts.zone = raw.zone;

@@ -7,7 +7,7 @@ import type { DayMode } from '../plan/daily.js';
 import { planWeek, weekReportParts } from '../plan/week.js';
 import { emitWeek, PLAN_OUTPUTS } from './plan-output.js';
 import { countHook, progressLine } from './progress.js';
-import { addCommonOptions, parseShardFlag, prepareOutput, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, parseShardFlag, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
 import { shardScenario } from '../plan/shard.js';
 import { SHARD_FORMAT, shardFileContent, shardFileName, type ShardHeader } from '../report/shard.js';
 import { writeOutputs } from '../report/write.js';
@@ -31,7 +31,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       if (shard && !opts.write) throw new UsageError('--shard writes its partial result under --out; it cannot be used with --no-write');
       prepareOutput(opts, io, shard ? [shardFileName(shard)] : PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
-      const scenario = loadScenario(opts.files);
+      const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
       const span = spanFor(opts, scenario, io);
       assertPreflight(scenario, span); // file and field of a model-range problem, before any work
       const progress = progressLine(io, 'plan');
@@ -50,6 +50,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
           fromMs: span.startMs,
           toMs: span.endMs,
           linkStepS: unscheduled.linkStepS,
+          availabilityPercent: unscheduled.availabilityPercent,
           spacecraft: unscheduled.spacecraft.map((s) => s.id),
         };
         const [path] = await writeOutputs(opts.outDir, [{ name: shardFileName(shard), content: shardFileContent(header, unscheduled) }]);

@@ -14,7 +14,7 @@ import { assertPreflight } from '../plan/preflight.js';
 import { DEFAULT_SIZING_LINK_STEP_S, prepareSizingContext, sizeForWeek, sizePowerAtGeometry, type SolveFor, type VolumeBasis } from '../plan/sizing.js';
 import { pointSizingJson, renderPointSizingText, renderWeekSizingText, weekSizingJson } from '../report/sizing.js';
 import { writeOutputs } from '../report/write.js';
-import { addCommonOptions, numberFlag, prepareOutput, readGeometryOverrides, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, withAvailability, numberFlag, prepareOutput, readGeometryOverrides, readCommonOptions, spanFor } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
@@ -27,7 +27,6 @@ interface SizeRaw {
   solve: SolveFor;
   basis: VolumeBasis | 'auto';
   oneStationAtATime?: boolean;
-  availability?: string;
   elevation?: string;
   rangeKm?: string;
   targetRateBps?: string;
@@ -52,7 +51,6 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
         .default('auto'),
     )
     .option('--one-station-at-a-time', 'scheduled basis: a spacecraft downlinks to one station at a time')
-    .option('--availability <percent>', "availability the budget is computed for (default: the scenario's)")
     .option('--elevation <deg>', 'one-geometry mode: elevation, deg')
     .option('--range-km <km>', 'one-geometry mode: slant range, km')
     .option('--target-rate-bps <R>', 'one-geometry mode: information rate to carry, bit/s')
@@ -64,8 +62,7 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
       if (opts.format === 'csv') throw new UsageError('--format: size prints table or json');
       prepareOutput(opts, io, ['sizing.json']);
       const scenario = loadScenario(opts.files);
-      const availability = numberFlag('--availability', raw.availability, 90, 99.999);
-      if (availability !== undefined) scenario.link = { ...scenario.link, availabilityPercent: availability };
+      withAvailability(scenario, opts.availabilityPercent);
       const rate = numberFlag('--target-rate-bps', raw.targetRateBps, 1e-3, 1e12);
       const target = numberFlag('--target-gbit-per-day', raw.targetGbitPerDay, 1e-9, 1e9);
       let text: string;

@@ -12,7 +12,7 @@ import { loadScenario } from '../scenario/load.js';
 import { assertPreflight } from '../plan/preflight.js';
 import { DEFAULT_TRACE_STEP_S, prepareTrace, traceRows, traceSelectionProblems, type TraceOptions } from '../plan/trace.js';
 import { streamTraceCsv, traceTimeDecimals, writeTraceFile } from '../report/trace.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
 import { processIo, type CliIo } from './io.js';
 import { progressLine } from './progress.js';
 import type { SetExit } from './commands.js';
@@ -62,7 +62,7 @@ export function registerTrace(program: Command, io: CliIo, setExit: SetExit): vo
     if (opts.format === 'json') throw new UsageError('--format: trace writes CSV only (use --format csv for stdout)');
     if (opts.zone !== undefined) throw new UsageError('--zone: trace times are always UTC (column time_utc)');
     if (opts.format !== 'csv') prepareOutput(opts, io, ['trace.csv']);
-    const scenario = loadScenario(opts.files);
+    const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
     const span = spanFor(opts, scenario, io);
     assertPreflight(scenario, span); // file and field of a model-range problem, before any work
     const traceOpts: TraceOptions = { stepS: opts.stepS ?? DEFAULT_TRACE_STEP_S, inContactOnly: raw.inContact === true };

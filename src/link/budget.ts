@@ -45,6 +45,7 @@ import { polarizationMismatchLossDb } from './polarization.js';
 import type { BudgetTerm, LinkSample, PrepareLinkOptions, PreparedLink } from './types.js';
 import { newLinkSample } from './types.js';
 import { BOLTZMANN_EXACT_DBW_PER_K_HZ, linearToDb } from './units.js';
+import { skyNoiseTemperatureK } from './atmosphere/sky-noise.js';
 
 /**
  * Reference system noise temperature assumed for a station stated as G/T without a
@@ -345,6 +346,25 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
     out.shannonRateBps = shannonCapacityBps(p.occupiedBandwidthHz, cN0DbHz);
     out.dopplerHz = dopplerShiftHz(f, look.rangeRateKmS);
   }
+}
+
+/**
+ * How much the sample's Es/N0 (and Eb/N0, and the margin) changes when its atmosphere is
+ * replaced by an absorptive attenuation absorptionDb without scintillation (the expected
+ * volume's levels): the loss difference plus the G/T change of the sky noise that
+ * attenuation emits (ITU-R P.618-14 §3), through the same receiver model as evaluateLink.
+ * A G/T given by the user stays. Allocates nothing.
+ */
+export function esN0ShiftDb(p: PreparedLink, s: LinkSample, absorptionDb: number): number {
+  let gt = s.gOverTDbK;
+  if (p.gOverTOverrideDbK !== p.gOverTOverrideDbK) {
+    const tskyK = skyNoiseTemperatureK(absorptionDb);
+    gt =
+      p.receiverKind === 'chain'
+        ? gOverTDbK(p.rxGainDbi, p.feedLossDb, p.skyNoiseWeight * tskyK + p.fixedNoiseTempK)
+        : gOverTAtSkyDbK(p.statedGOverTDbK, p.referenceSystemNoiseTempK, p.referenceSkyNoiseTempK, tskyK);
+  }
+  return s.atmosphereDb - absorptionDb + (gt - s.gOverTDbK);
 }
 
 /** The budget at one look, term by term, for a handbook-style printout (allocates). */

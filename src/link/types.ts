@@ -3,7 +3,7 @@
  * and one station; a LinkSample is the per-time-step result written by evaluateLink
  * (src/link/budget.ts) without allocation.
  */
-import type { AtmosphereResult, AtmosphereTable } from './atmosphere/types.js';
+import type { AtmosphereResult, AtmosphereTable, ExceedanceLevelsTable } from './atmosphere/types.js';
 import type { ModcodEntry, Polarization } from '../scenario/types.js';
 
 /** Everything in the budget that does not change from one time step to the next. */
@@ -93,6 +93,11 @@ export interface PreparedLink {
   readonly atmosphere: AtmosphereTable;
   /** Scratch written by atmosphere.at on every sample (not shared between threads). */
   readonly atmosphereScratch: AtmosphereResult;
+  /**
+   * The absorption at the expected volume's exceedance levels (atmosphere/exceedance-levels.ts),
+   * when the plan computes it; absent otherwise.
+   */
+  readonly exceedanceLevels?: ExceedanceLevelsTable;
 }
 
 /** The budget at one time step. Every field is a finite number after evaluateLink. */

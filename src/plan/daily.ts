@@ -41,6 +41,8 @@ export interface DailyRow {
   /** True when the span covers only part of the day (first or last day). */
   partial: boolean;
   volumeBits: number;
+  /** Expected volume over an average year (ContactLink.expectedVolumeBits; the volume where absent). */
+  expectedVolumeBits: number;
   contactCount: number;
   contactTimeS: number;
 }
@@ -56,6 +58,9 @@ export interface SpacecraftTotal {
   volumeBits: number;
   /** Plain sum of the contacts' volumes over all stations (simultaneous reception counted at each). */
   stationSumVolumeBits: number;
+  /** Expected volume over an average year, counted once (unique-volume.ts), and its station-sum. */
+  expectedVolumeBits: number;
+  stationSumExpectedVolumeBits: number;
   /** With a recorder simulated: what actually left the recorder (volumeBits is then link capacity). */
   deliveredBits?: number;
   /** The spacecraft's other radios (not the data downlink), each its own volume counted once. */
@@ -72,6 +77,9 @@ export interface AllStationsDay {
   volumeBits: number;
   /** Sum of the stations' day volumes (simultaneous reception counted at each station). */
   stationSumVolumeBits: number;
+  /** Expected volume counted once, and its station-sum. */
+  expectedVolumeBits: number;
+  stationSumExpectedVolumeBits: number;
 }
 
 const HOUR_MS = 3_600_000;
@@ -149,6 +157,7 @@ export function dailyTotals(plan: PlanResult, mode: DayMode): DailyRow[] {
         dstChange: dayHours !== 24,
         partial: d.startMs < plan.span.startMs || d.endMs > plan.span.endMs,
         volumeBits: 0,
+        expectedVolumeBits: 0,
         contactCount: 0,
         contactTimeS: 0,
       };
@@ -173,6 +182,15 @@ export function dailyTotals(plan: PlanResult, mode: DayMode): DailyRow[] {
         if (!d || binMs < d.startMs || binMs >= d.endMs) hint = dayIndex(days, binMs);
         if (hint < 0) throw new Error(`daily totals: a volume bin of ${c.spacecraftId} over ${st.id} is outside the span's days`);
         stationRows[hint]!.volumeBits += bits;
+      });
+      hint = ia;
+      (link.expectedVolumeBinsBits ?? link.volumeBinsBits).forEach((bits, k) => {
+        if (bits === 0) return;
+        const binMs = link.binStartMs + k * VOLUME_BIN_MS;
+        const d = days[hint];
+        if (!d || binMs < d.startMs || binMs >= d.endMs) hint = dayIndex(days, binMs);
+        if (hint < 0) throw new Error(`daily totals: an expected-volume bin of ${c.spacecraftId} over ${st.id} is outside the span's days`);
+        stationRows[hint]!.expectedVolumeBits += bits;
       });
     }
     rows.push(...stationRows);
@@ -209,6 +227,8 @@ export function spacecraftTotals(
       stationSumContactTimeS: u.stationSumContactTimeS,
       volumeBits: u.volumeBits,
       stationSumVolumeBits: u.stationSumBits,
+      expectedVolumeBits: u.expectedVolumeBits,
+      stationSumExpectedVolumeBits: u.stationSumExpectedBits,
     };
     const d = delivered?.get(u.spacecraftId);
     if (d !== undefined) t.deliveredBits = d;
@@ -243,10 +263,12 @@ export function allStationsDaily(
   return daysOfSpan(plan.span, 'UTC').map((d) => {
     let count = 0;
     let sum = 0;
+    let expectedSum = 0;
     for (const r of rows) {
       if (r.timeZone !== 'UTC' || r.dayStartMs !== d.startMs) continue;
       count += r.contactCount;
       sum += r.volumeBits;
+      expectedSum += r.expectedVolumeBits;
     }
     return {
       day: d.day,
@@ -255,6 +277,8 @@ export function allStationsDaily(
       contactCount: count,
       volumeBits: uniqueBitsIn(unique, d.startMs, d.endMs),
       stationSumVolumeBits: sum,
+      expectedVolumeBits: uniqueBitsIn(unique, d.startMs, d.endMs, true),
+      stationSumExpectedVolumeBits: expectedSum,
     };
   });
 }

@@ -26,9 +26,10 @@
 import { lookFrom, newLook } from '../geometry/topocentric.js';
 import { StateInterpolator } from '../geometry/interpolate.js';
 import type { Look, Site } from '../geometry/types.js';
-import { buildAtmosphereTable, rainModelled, type AtmosphereStationInput } from '../link/atmosphere/index.js';
-import type { AtmosphereTable } from '../link/atmosphere/types.js';
-import { prepareLink, evaluateLink } from '../link/budget.js';
+import { buildAtmosphereTable, buildExceedanceLevelsTable, rainModelled, type AtmosphereStationInput } from '../link/atmosphere/index.js';
+import { EXPECTED_VOLUME_LEVELS, expectationWeights, expectedValueBound } from '../link/atmosphere/exceedance-levels.js';
+import type { AtmosphereTable, ExceedanceLevelsTable } from '../link/atmosphere/types.js';
+import { prepareLink, evaluateLink, esN0ShiftDb } from '../link/budget.js';
 import { polarizationTiltDeg } from '../link/polarization.js';
 import { stationClimate } from '../link/climate/station.js';
 import { wavelengthM } from '../link/units.js';
@@ -123,11 +124,15 @@ export function prepareRadioAtStation(
   settings: LinkSettings,
   minElevationDeg: number,
   tableCache?: Map<string, AtmosphereTable>,
+  /** Also tabulate the absorption at the expected volume's exceedance levels (cached by the same map's owner). */
+  levelsCache?: Map<string, ExceedanceLevelsTable>,
 ): PreparedLink {
   try {
     // the receiver of the feed that hears the radio (callers check radioHeardAt first)
     const heard = stationThroughFeed(station, radio.frequencyHz) ?? station;
-    return prepareRadioAtStationUnnamed(radio, heard, site, settings, minElevationDeg, tableCache);
+    const link = prepareRadioAtStationUnnamed(radio, heard, site, settings, minElevationDeg, tableCache);
+    if (!levelsCache) return link;
+    return { ...link, exceedanceLevels: exceedanceLevelsFor(link, heard, radio, settings, minElevationDeg, levelsCache) };
   } catch (err) {
     // A model asked for outside its range (a frequency above P.618's 55 GHz, a pointing
     // error wider than the beam) stays a ModelRangeError (sizing ends its scan on one),
@@ -168,16 +173,74 @@ export function prepareRadioAtStationUnnamed(
 
 
 /**
- * The prepared link of every radio of every spacecraft at every station. The atmosphere
- * depends on the station, frequency, polarisation and availability only: spacecraft
- * sharing a band share its tables (`tables`, which a caller may keep across calls).
+ * The change of the link's closing quantity (Es/N0, or the fixed code's margin) from its
+ * atmosphere at the chosen availability to the absorption at each level of
+ * EXPECTED_VOLUME_LEVELS (budget.ts esN0ShiftDb: loss and sky noise), tabulated over
+ * elevation: a function of elevation only, so a sample needs one table lookup per level.
+ * The climate is read at each level's exceedance; rain is dropped where the level has none.
  */
-export function prepareLinks(scenario: Scenario, geometry: Geometry, tables: Map<string, AtmosphereTable> = new Map()): LinkSetup {
+function exceedanceLevelsFor(
+  link: PreparedLink,
+  station: Station,
+  radio: Radio,
+  settings: LinkSettings,
+  minElevationDeg: number,
+  cache: Map<string, ExceedanceLevelsTable>,
+): ExceedanceLevelsTable {
+  const inputs = EXPECTED_VOLUME_LEVELS.map((level) => {
+    const input = atmosphereInputFor(station, radio, { ...settings, availabilityPercent: 100 - level.exceedancePercent });
+    if (level.rain) return input;
+    const { rainRate001MmH: _r, rainHeightKm: _h, ...dry } = input;
+    return dry;
+  });
+  const key = `${JSON.stringify(inputs)}|${JSON.stringify(station.receiver)}|${settings.availabilityPercent}|${minElevationDeg}`;
+  let t = cache.get(key);
+  if (!t) {
+    const look = newLook();
+    look.rangeKm = 1000; // the atmosphere and G/T do not depend on it
+    const s = newLinkSample();
+    let lastEl = Number.NaN;
+    t = buildExceedanceLevelsTable(inputs, minElevationDeg, (_level, absorptionDb, elevationDeg) => {
+      if (elevationDeg !== lastEl) {
+        look.elevationDeg = elevationDeg;
+        evaluateLink(link, look, s, false);
+        lastEl = elevationDeg;
+      }
+      return esN0ShiftDb(link, s, absorptionDb);
+    });
+    cache.set(key, t);
+  }
+  return t;
+}
+
+export interface PrepareLinksOptions {
+  /** Tabulate the expected volume's exceedance levels, so that contacts carry their expected volume (default true). */
+  expectedVolume?: boolean;
+  /** Tables kept across calls (a worker's batches share them); default: new ones. */
+  cache?: LinkTableCache;
+}
+
+/**
+ * Tables a run builds once: the atmosphere depends on the station, frequency,
+ * polarisation and availability only, so spacecraft sharing a band share them.
+ */
+export interface LinkTableCache {
+  atmosphere: Map<string, AtmosphereTable>;
+  levels: Map<string, ExceedanceLevelsTable>;
+}
+
+export const newLinkTableCache = (): LinkTableCache => ({ atmosphere: new Map(), levels: new Map() });
+
+/** The prepared link of every radio of every spacecraft at every station. */
+export function prepareLinks(scenario: Scenario, geometry: Geometry, opts: PrepareLinksOptions = {}): LinkSetup {
   const links = new Map<string, PreparedLink>();
   const otherLinks: Map<string, PreparedLink>[] = [];
   const warnings: string[] = [];
   const warningOrigins: WarningOrigin[] = [];
   const warnedRain = new Set<string>();
+  const cache = opts.cache ?? newLinkTableCache();
+  const tables = cache.atmosphere;
+  const levels = opts.expectedVolume === false ? undefined : cache.levels;
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
     for (const sc of scenario.spacecraft) {
@@ -193,7 +256,7 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry, tables: Map
           warnings.push(`${station.id}: no rain climate (rainRate001MmH, rainHeightKm); the rain term is not modelled above ${RAIN_WARNING_ABOVE_HZ / 1e9} GHz`);
           warningOrigins.push({ stationId: station.id, spacecraftId: sc.id, radioIndex: r });
         }
-        const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station), tables);
+        const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station), tables, levels);
         if (r === 0) links.set(linkKey(sc.id, station.id), link);
         else {
           while (otherLinks.length < r) otherLinks.push(new Map());
@@ -275,6 +338,45 @@ interface Accumulator {
    * the same spacecraft: the unique-volume rule (unique-volume.ts) needs it there.
    */
   pieces: number[] | undefined;
+  /** The expected volume's running sums, when the link carries exceedance levels. */
+  expected: ExpectedAccumulator | undefined;
+}
+
+/** Per contact: the closing quantity at each exceedance level and each level's volume. */
+interface ExpectedAccumulator {
+  table: ExceedanceLevelsTable;
+  weights: Float64Array;
+  /** Closing quantity per level at the last sample, and at the current one (swapped after each sample). */
+  lastQ: Float64Array;
+  q: Float64Array;
+  /** The rate step in force at those samples (stepAt), per level. */
+  lastStep: Int32Array;
+  step: Int32Array;
+  /** Volume per level, bits (fractional). */
+  levelBits: Float64Array;
+  /** Expected volume per 15-min bin (same bins as the volume). */
+  bins: number[];
+  /** Expected-rate pieces, kept where the volume's rate pieces are (Accumulator.pieces). */
+  pieces: number[] | undefined;
+}
+
+const LEVEL_WEIGHTS = expectationWeights(EXPECTED_VOLUME_LEVELS);
+/** Closing-quantity shift per level at one sample (reused). */
+const levelShiftDb = new Float64Array(EXPECTED_VOLUME_LEVELS.length);
+
+function newExpectedAccumulator(table: ExceedanceLevelsTable, keepPieces: boolean): ExpectedAccumulator {
+  const n = table.levels;
+  return {
+    table,
+    weights: LEVEL_WEIGHTS,
+    lastQ: new Float64Array(n),
+    q: new Float64Array(n),
+    lastStep: new Int32Array(n).fill(-1),
+    step: new Int32Array(n).fill(-1),
+    levelBits: new Float64Array(n),
+    bins: [],
+    pieces: keepPieces ? [] : undefined,
+  };
 }
 
 function modcodNameAt(link: PreparedLink, index: number): string {
@@ -353,6 +455,92 @@ function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number,
   }
 }
 
+/** Breakpoints of one segment for the expected volume (elevation + bin edges), reused. */
+const levelBreaks = new Float64Array(64);
+
+/**
+ * Mean rate over a piece along which q runs linearly from qa to qb: the step function
+ * integrated exactly (the share of the piece spent on each step).
+ */
+function meanRateBps(m: RateModel, qa: number, qb: number, sa = stepAt(m.stairs, qa), sb = stepAt(m.stairs, qb)): number {
+  if (sa === sb) return sa < 0 ? 0 : (m.rateBps[sa] as number);
+  const lo = Math.min(qa, qb);
+  const hi = Math.max(qa, qb);
+  const first = Math.min(sa, sb);
+  const last = Math.max(sa, sb);
+  const thr = m.stairs.thresholdsDb;
+  let sum = 0;
+  for (let step = first; step <= last; step++) {
+    const a = step < 0 ? lo : Math.max(lo, thr[step] as number);
+    const b = step + 1 < thr.length ? Math.min(hi, thr[step + 1] as number) : hi;
+    if (b > a && step >= 0) sum += (m.rateBps[step] as number) * (b - a);
+  }
+  return sum / (hi - lo);
+}
+
+/**
+ * The expected volume's part of integrateSegment: each level's closing quantity linear in
+ * time between the two samples like the volume's, cut at the minimum data elevation and
+ * at bin edges; each level's step function integrated exactly (meanRateBps).
+ */
+function integrateLevels(acc: Accumulator, e: ExpectedAccumulator, t0: number, el0: number, t1: number, el1: number): void {
+  const m = acc.model;
+  let n = 0;
+  levelBreaks[n++] = 0;
+  const del = el1 - el0;
+  if (del !== 0) {
+    const f = (m.minDataElevationDeg - el0) / del;
+    if (f > 0 && f < 1) levelBreaks[n++] = f;
+  }
+  const span = t1 - t0;
+  for (let edge = acc.binStartMs + Math.ceil((t0 - acc.binStartMs) / VOLUME_BIN_MS) * VOLUME_BIN_MS; edge < t1; edge += VOLUME_BIN_MS) {
+    const f = (edge - t0) / span;
+    if (f > 0 && f < 1 && n < levelBreaks.length - 1) levelBreaks[n++] = f;
+  }
+  levelBreaks[n++] = 1;
+  for (let i = 1; i < n; i++) {
+    const v = levelBreaks[i] as number;
+    let j = i - 1;
+    while (j >= 0 && (levelBreaks[j] as number) > v) {
+      levelBreaks[j + 1] = levelBreaks[j] as number;
+      j--;
+    }
+    levelBreaks[j + 1] = v;
+  }
+  const qa = e.lastQ;
+  const qb = e.q;
+  const whole = n === 2; // one piece: its ends are the samples, whose steps are known
+  for (let i = 0; i + 1 < n; i++) {
+    const fa = levelBreaks[i] as number;
+    const fb = levelBreaks[i + 1] as number;
+    if (fb <= fa) continue;
+    const fm = 0.5 * (fa + fb);
+    if (el0 + del * fm < m.minDataElevationDeg) continue;
+    const dtS = ((fb - fa) * span) / 1000;
+    let ev = 0;
+    for (let k = 0; k < qa.length; k++) {
+      const q0 = qa[k] as number;
+      const dq = (qb[k] as number) - q0;
+      const dv =
+        (whole ? meanRateBps(m, q0, q0 + dq, e.lastStep[k] as number, e.step[k] as number) : meanRateBps(m, q0 + dq * fa, q0 + dq * fb)) * dtS;
+      e.levelBits[k]! += dv;
+      ev += (e.weights[k] as number) * dv;
+    }
+    const bin = Math.floor((t0 + fm * span - acc.binStartMs) / VOLUME_BIN_MS);
+    while (e.bins.length <= bin) e.bins.push(0);
+    e.bins[bin]! += ev;
+    const pc = e.pieces;
+    if (pc !== undefined && ev > 0) {
+      const rate = ev / dtS;
+      const a = t0 + fa * span;
+      const b = t0 + fb * span;
+      const np = pc.length;
+      if (np >= 3 && pc[np - 1] === rate && pc[np - 2] === a) pc[np - 2] = b;
+      else pc.push(a, b, rate);
+    }
+  }
+}
+
 /** Adds the sample at tMs: worst margin over the whole contact, volume over the data span. */
 function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): void {
   acc.samples++;
@@ -363,8 +551,34 @@ function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): vo
   }
   if (tMs < acc.dataStartMs || tMs > acc.dataEndMs) return;
   const q = acc.model.adaptive ? s.esN0Db - acc.model.qOffsetDb : s.marginDb;
+  const e = acc.expected;
+  if (e !== undefined) {
+    let el = look.elevationDeg;
+    if (el < e.table.minElevationDeg) el = e.table.minElevationDeg;
+    if (el > 90) el = 90;
+    e.table.valuesAt(el, levelShiftDb);
+    const thr = acc.model.stairs.thresholdsDb;
+    for (let k = 0; k < e.q.length; k++) {
+      const qk = q + (levelShiftDb[k] as number);
+      e.q[k] = qk;
+      // stepAt, walked from the last sample's step (q moves little between samples)
+      let st = e.lastStep[k] as number;
+      while (st + 1 < thr.length && (thr[st + 1] as number) <= qk) st++;
+      while (st >= 0 && (thr[st] as number) > qk) st--;
+      e.step[k] = st;
+    }
+  }
   if (acc.lastMs >= acc.dataStartMs && tMs > acc.lastMs) {
     integrateSegment(acc, acc.lastMs, acc.lastQ, acc.lastElevationDeg, tMs, q, look.elevationDeg);
+    if (e !== undefined) integrateLevels(acc, e, acc.lastMs, acc.lastElevationDeg, tMs, look.elevationDeg);
+  }
+  if (e !== undefined) {
+    const t = e.lastQ;
+    e.lastQ = e.q;
+    e.q = t;
+    const u = e.lastStep;
+    e.lastStep = e.step;
+    e.step = u;
   }
   acc.lastMs = tMs;
   acc.lastQ = q;
@@ -438,6 +652,7 @@ export function integrateContacts(
       binStartMs: Math.floor(c.aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS,
       bins: [],
       pieces: overlapping.has(c) ? [] : undefined,
+      expected: link.exceedanceLevels ? newExpectedAccumulator(link.exceedanceLevels, overlapping.has(c)) : undefined,
     };
     const list = bySpacecraft.get(c.spacecraftId) ?? [];
     list.push(acc);
@@ -617,5 +832,13 @@ function finish(acc: Accumulator): void {
     volumeBinsBits: whole.bins,
   };
   if (acc.pieces !== undefined) link.ratePieces = acc.pieces;
+  const e = acc.expected;
+  if (e !== undefined) {
+    const expected = wholeBitBins(e.bins);
+    link.expectedVolumeBits = expected.totalBits;
+    link.expectedVolumeBinsBits = expected.bins;
+    link.expectedVolumeBoundBits = expectedValueBound(EXPECTED_VOLUME_LEVELS, e.levelBits);
+    if (e.pieces !== undefined) link.expectedRatePieces = e.pieces;
+  }
   acc.contact.link = link;
 }

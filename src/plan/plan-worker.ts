@@ -2,7 +2,7 @@
  * Worker-thread entry of runPlanParallel: runs the plan pipeline on each batch of
  * spacecraft the main thread sends ({ batch, spacecraft }) and posts each batch's
  * result back at once, so a worker never holds more than one batch of contacts. The
- * scenario's stations and link settings come once (workerData); atmosphere tables are
+ * scenario's stations and link settings come once (workerData); the link's tables are
  * built once per worker and shared by its batches. Pure computation, no I/O. An error
  * is posted as data (serializeError) so the main thread re-raises it as its own class:
  * a user's mistake stays one line and exit 2, whichever thread found it.
@@ -11,7 +11,7 @@ import { parentPort, workerData } from 'node:worker_threads';
 import { runPlan, type PlanOptions } from './run.js';
 import { serializeError } from '../errors.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
-import type { AtmosphereTable } from '../link/atmosphere/types.js';
+import { newLinkTableCache } from './link.js';
 import type { BatchJob, WorkerReply } from './parallel.js';
 
 interface Job {
@@ -22,7 +22,7 @@ interface Job {
 }
 
 const job = workerData as Job;
-const tables = new Map<string, AtmosphereTable>();
+const tables = newLinkTableCache();
 
 parentPort?.on('message', (msg: BatchJob) => {
   let reply: WorkerReply;

@@ -5,12 +5,13 @@
 import { DEFAULT_SEARCH, type SearchOptions } from '../geometry/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import { prepareGeometry, findContacts } from './contacts.js';
-import { prepareLinks, integrateContacts, integrateOtherRadios, DEFAULT_LINK_STEP_S } from './link.js';
+import { prepareLinks, type LinkTableCache, integrateContacts, integrateOtherRadios, DEFAULT_LINK_STEP_S } from './link.js';
 import type { PlanResult } from './types.js';
-import type { AtmosphereTable } from '../link/atmosphere/types.js';
 
 export interface PlanOptions {
   linkStepS?: number;
+  /** Compute each contact's expected volume over an average year (default true; the benchmark turns it off). */
+  expectedVolume?: boolean;
   /** Skip the link engine (geometry only). */
   geometryOnly?: boolean;
   search?: SearchOptions;
@@ -18,8 +19,8 @@ export interface PlanOptions {
   onProgress?: (done: number, total: number, label: string) => void;
 }
 
-/** `tables`: atmosphere tables kept across calls (a worker's batches of one run share them). */
-export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, tables?: Map<string, AtmosphereTable>): PlanResult {
+/** `cache`: link tables kept across calls (a worker's batches of one run share them). */
+export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, cache?: LinkTableCache): PlanResult {
   const geometry = prepareGeometry(scenario, span);
   const total = opts.geometryOnly ? 1 : 2;
   opts.onProgress?.(0, total, 'contact search');
@@ -31,7 +32,7 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, 
   let propagations = found.propagations;
   const linkStepS = opts.linkStepS ?? DEFAULT_LINK_STEP_S;
   if (!opts.geometryOnly) {
-    const setup = prepareLinks(scenario, geometry, tables);
+    const setup = prepareLinks(scenario, geometry, { ...(opts.expectedVolume === false ? { expectedVolume: false } : {}), ...(cache ? { cache } : {}) });
     for (const w of setup.warnings) warnings.push(w);
     for (const o of setup.warningOrigins ?? []) origins.push(o);
     const stats = integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);

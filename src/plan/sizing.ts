@@ -126,7 +126,7 @@ export interface SizingContext {
 export function prepareSizingContext(scenario: Scenario, span: Span, linkStepS = DEFAULT_SIZING_LINK_STEP_S): SizingContext {
   const geometry = prepareGeometry(scenario, span);
   const found = findContacts(scenario, geometry, span);
-  const setup = prepareLinks(scenario, geometry);
+  const setup = prepareLinks(scenario, geometry, { expectedVolume: false }); // sizing reads the volume at the availability only
   integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);
   const basePlan = planResult(scenario, span, linkStepS, found.contacts, [...found.warnings, ...setup.warnings], { propagations: 0, linkSamples: 0 });
   return { scenario, span, geometry, baseline: found.contacts, basePlan, linkStepS, atmosphereTables: new Map() };

@@ -34,6 +34,16 @@ export interface ContactLink {
    * counts the radio's data once there); absent otherwise.
    */
   ratePieces?: number[];
+  /**
+   * Expected volume over an average year's attenuation statistics (link/atmosphere/
+   * exceedance-levels.ts), whole bits, with its 15-minute bins (same bins as the volume)
+   * and the bound on its quadrature error, bits; absent when not computed.
+   */
+  expectedVolumeBits?: number;
+  expectedVolumeBinsBits?: number[];
+  expectedVolumeBoundBits?: number;
+  /** The expected rate as [startMs, endMs, rateBps] pieces, kept where ratePieces is (unique-volume.ts). */
+  expectedRatePieces?: number[];
 }
 
 export const VOLUME_BIN_MS = 15 * 60 * 1000;

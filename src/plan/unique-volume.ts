@@ -16,6 +16,11 @@
  * receive: only totals across stations use this rule.
  * Whole bits: the cluster's 15-minute bins are rounded by their running sum
  * (wholeBitBins), then capped by the cluster's station-sum.
+ * Expected volume (ContactLink.expectedVolumeBits; the volume where a contact has none)
+ * counted once by the same rule on the expected rate (ContactLink.expectedRatePieces): at
+ * each instant the station with the highest expected rate. That is the expected volume of
+ * always using that station, a lower bound on the mean of the best station draw by draw of
+ * the weather (stations' weather is not modelled jointly).
  * Pure: no I/O.
  */
 import { wholeBitBins } from './link.js';
@@ -33,16 +38,26 @@ export interface UniqueVolume {
   stationSumContactTimeS: number;
   /** Unique volume per absolute 15-minute UTC bin: bin start ms -> whole bits. */
   binsBits: Map<number, number>;
+  /** The expected volume counted once (see the head), its station-sum and its bins, whole bits. */
+  expectedVolumeBits: number;
+  stationSumExpectedBits: number;
+  expectedBinsBits: Map<number, number>;
 }
 
-/** Integral of max over contacts of their rate pieces, into absolute 15-min bins (fractional bits). */
-function maxRateBins(cluster: readonly Contact[]): Map<number, number> {
+const expectedOf = (c: Contact): number => c.link?.expectedVolumeBits ?? c.link?.volumeBits ?? 0;
+
+/**
+ * Integral of max over contacts of their rate pieces (or, with expected, their expected-rate
+ * pieces), into absolute 15-min bins (fractional bits).
+ */
+function maxRateBins(cluster: readonly Contact[], expected = false): Map<number, number> {
   const edges: number[] = [];
   const lists: number[][] = [];
   for (const c of cluster) {
-    const p = c.link?.ratePieces;
+    const p = expected ? c.link?.expectedRatePieces : c.link?.ratePieces;
     if (!p) {
-      if ((c.link?.volumeBits ?? 0) > 0) throw new Error(`unique volume: contact of ${c.spacecraftId} at ${c.stationId} overlaps another but has no rate pieces (a bug)`);
+      const bits = expected ? (c.link?.expectedVolumeBits ?? 0) : (c.link?.volumeBits ?? 0);
+      if (bits > 0) throw new Error(`unique volume: contact of ${c.spacecraftId} at ${c.stationId} overlaps another but has no rate pieces (a bug)`);
       continue;
     }
     lists.push(p);
@@ -83,10 +98,34 @@ function addBins(into: Map<number, number>, binStartMs: number, bins: readonly n
   });
 }
 
+/** Whole bits of a cluster's fractional bins added into `into`, capped by the cluster's station-sum; returns their total. */
+function onceInto(into: Map<number, number>, frac: Map<number, number>, stationSumBits: number): number {
+  const keys = [...frac.keys()].sort((a, b) => a - b);
+  const whole = wholeBitBins(keys.map((k) => frac.get(k)!));
+  let total = 0;
+  keys.forEach((k, n) => {
+    // cap by the station-sum (rounding of whole bits could otherwise add a bit)
+    const bits = Math.min(whole.bins[n]!, stationSumBits - total);
+    total += bits;
+    if (bits !== 0) into.set(k, (into.get(k) ?? 0) + bits);
+  });
+  return total;
+}
+
 /** One spacecraft's unique volume from its contacts (any order). */
 export function uniqueVolumeOf(spacecraftId: string, contacts: readonly Contact[]): UniqueVolume {
   const list = contacts.filter((c) => c.spacecraftId === spacecraftId).sort((a, b) => a.aosMs - b.aosMs);
-  const out: UniqueVolume = { spacecraftId, volumeBits: 0, stationSumBits: 0, contactTimeS: 0, stationSumContactTimeS: 0, binsBits: new Map() };
+  const out: UniqueVolume = {
+    spacecraftId,
+    volumeBits: 0,
+    stationSumBits: 0,
+    contactTimeS: 0,
+    stationSumContactTimeS: 0,
+    binsBits: new Map(),
+    expectedVolumeBits: 0,
+    stationSumExpectedBits: 0,
+    expectedBinsBits: new Map(),
+  };
   let i = 0;
   while (i < list.length) {
     // one cluster of overlapping windows
@@ -99,29 +138,26 @@ export function uniqueVolumeOf(spacecraftId: string, contacts: readonly Contact[
     const cluster = list.slice(i, j);
     out.contactTimeS += (reachMs - cluster[0]!.aosMs) / 1000;
     let sum = 0;
+    let expectedSum = 0;
     for (const c of cluster) {
       out.stationSumContactTimeS += c.durationS;
       sum += c.link?.volumeBits ?? 0;
+      expectedSum += expectedOf(c);
     }
     out.stationSumBits += sum;
+    out.stationSumExpectedBits += expectedSum;
     if (cluster.length === 1) {
       const l = cluster[0]!.link;
       if (l) {
         out.volumeBits += l.volumeBits;
         addBins(out.binsBits, l.binStartMs, l.volumeBinsBits);
+        out.expectedVolumeBits += expectedOf(cluster[0]!);
+        addBins(out.expectedBinsBits, l.binStartMs, l.expectedVolumeBinsBits ?? l.volumeBinsBits);
       }
     } else {
-      const frac = maxRateBins(cluster);
-      const keys = [...frac.keys()].sort((a, b) => a - b);
-      const whole = wholeBitBins(keys.map((k) => frac.get(k)!));
-      let total = 0;
-      keys.forEach((k, n) => {
-        // cap by the station-sum (rounding of whole bits could otherwise add a bit)
-        const bits = Math.min(whole.bins[n]!, sum - total);
-        total += bits;
-        if (bits !== 0) out.binsBits.set(k, (out.binsBits.get(k) ?? 0) + bits);
-      });
-      out.volumeBits += total;
+      out.volumeBits += onceInto(out.binsBits, maxRateBins(cluster), sum);
+      const withExpected = cluster.some((c) => c.link?.expectedRatePieces !== undefined);
+      out.expectedVolumeBits += withExpected ? onceInto(out.expectedBinsBits, maxRateBins(cluster, true), expectedSum) : onceInto(out.expectedBinsBits, maxRateBins(cluster), sum);
     }
     i = j;
   }
@@ -139,9 +175,9 @@ export function uniqueVolumes(spacecraftIds: readonly string[], contacts: readon
   return spacecraftIds.map((id) => uniqueVolumeOf(id, bySc.get(id) ?? []));
 }
 
-/** Unique bits of all spacecraft whose bin starts in [startMs, endMs). */
-export function uniqueBitsIn(volumes: readonly UniqueVolume[], startMs: number, endMs: number): number {
+/** Unique bits (or, with expected, the expected volume counted once) of all spacecraft whose bin starts in [startMs, endMs). */
+export function uniqueBitsIn(volumes: readonly UniqueVolume[], startMs: number, endMs: number, expected = false): number {
   let s = 0;
-  for (const v of volumes) for (const [t, b] of v.binsBits) if (t >= startMs && t < endMs) s += b;
+  for (const v of volumes) for (const [t, b] of expected ? v.expectedBinsBits : v.binsBits) if (t >= startMs && t < endMs) s += b;
   return s;
 }

@@ -118,7 +118,8 @@ function eventText(ctx: EventContext, c: Contact, uid: string): string {
   ];
   if (c.link) {
     desc.push(
-      `Expected volume ${formatBits(c.link.volumeBits)} (${c.link.volumeBits} bit) on ${c.link.radioId}`,
+      `Volume ${formatBits(c.link.volumeBits)} (${c.link.volumeBits} bit) on ${c.link.radioId} at the link's availability` +
+        (c.link.expectedVolumeBits !== undefined ? `; ${formatBits(c.link.expectedVolumeBits)} expected over an average year` : ''),
       `Worst margin ${c.link.worstMarginDb.toFixed(1)} dB at ${c.link.worstMarginElevationDeg.toFixed(1)} deg elevation`,
     );
   }

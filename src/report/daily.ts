@@ -26,13 +26,15 @@ export function dailyRecord(r: DailyRow): DailyRecord {
     contacts: r.contactCount,
     contact_time_s: round1(r.contactTimeS),
     volume_bits: r.volumeBits,
+    expected_volume_bits: r.expectedVolumeBits,
   };
 }
 
 /**
  * volume_bits and contact_time_s count each radio's data and time once (the best station
  * at each instant; the union of the windows); the station_sum_ fields add up the stations.
- * With a recorder: delivered_bits left the recorder, volume_bits is then link capacity.
+ * expected_volume_bits: the mean over an average year's attenuation statistics, counted once
+ * the same way. With a recorder: delivered_bits left the recorder, volume_bits is then link capacity.
  */
 export function spacecraftTotalRecord(t: SpacecraftTotal): DailyRecord {
   return {
@@ -42,6 +44,8 @@ export function spacecraftTotalRecord(t: SpacecraftTotal): DailyRecord {
     volume_bits: t.volumeBits,
     station_sum_contact_time_s: round1(t.stationSumContactTimeS),
     station_sum_volume_bits: t.stationSumVolumeBits,
+    expected_volume_bits: t.expectedVolumeBits,
+    station_sum_expected_volume_bits: t.stationSumExpectedVolumeBits,
     ...(t.deliveredBits !== undefined ? { delivered_bits: t.deliveredBits } : {}),
     ...(t.otherRadios
       ? { other_radios: t.otherRadios.map((r) => ({ radio: r.radioId, volume_bits: r.volumeBits, station_sum_volume_bits: r.stationSumVolumeBits })) }
@@ -58,6 +62,8 @@ export function allStationsDayRecord(d: AllStationsDay): DailyRecord {
     contacts: d.contactCount,
     volume_bits: d.volumeBits,
     station_sum_volume_bits: d.stationSumVolumeBits,
+    expected_volume_bits: d.expectedVolumeBits,
+    station_sum_expected_volume_bits: d.stationSumExpectedVolumeBits,
   };
 }
 
@@ -73,6 +79,7 @@ const DAILY_COLUMNS = [
   'contacts',
   'contact_time_s',
   'volume_bits',
+  'expected_volume_bits',
 ];
 
 export function renderDailyCsv(rows: readonly DailyRow[]): string {
@@ -97,7 +104,7 @@ export function renderDailyTable(rows: readonly DailyRow[], mode: DayMode, total
   const cell = new Map(rows.map((r) => [`${r.stationId}|${r.day}`, r]));
   const cols: Column[] = [{ header: mode.kind === 'utc' ? 'day (UTC)' : 'day (station local)' }];
   for (const s of stations) cols.push({ header: s, align: 'right' });
-  if (mode.kind === 'utc' && allStations) cols.push({ header: 'all stations, counted once', align: 'right' });
+  if (mode.kind === 'utc' && allStations) cols.push({ header: 'all stations, counted once', align: 'right' }, { header: 'expected, counted once', align: 'right' });
   if (mode.kind === 'utc') cols.push({ header: 'station sum', align: 'right' });
   let dst = false;
   let partial = false;
@@ -118,7 +125,7 @@ export function renderDailyTable(rows: readonly DailyRow[], mode: DayMode, total
       partial ||= r.partial;
       line.push(`${formatBits(r.volumeBits)} (${r.contactCount})${flag}`);
     }
-    if (mode.kind === 'utc' && allStations) line.push(formatBits(once.get(day)?.volumeBits ?? 0));
+    if (mode.kind === 'utc' && allStations) line.push(formatBits(once.get(day)?.volumeBits ?? 0), formatBits(once.get(day)?.expectedVolumeBits ?? 0));
     if (mode.kind === 'utc') line.push(`${formatBits(sumBits)} (${sumCount})`);
     return line;
   });
@@ -127,6 +134,7 @@ export function renderDailyTable(rows: readonly DailyRow[], mode: DayMode, total
   if (partial) parts.push('"~": day only partly inside the span.');
   if (mode.kind === 'utc' && allStations) {
     parts.push('"counted once": each radio\'s data once, from the best station in contact at each instant; "station sum": simultaneous reception counted at every station.');
+    parts.push('"expected": the mean over an average year\'s attenuation statistics; the other volumes are at the link\'s availability.');
   }
   parts.push('');
   parts.push('Per spacecraft over the span (volume and contact time counted once: best station at each instant, union of the windows)');
@@ -136,6 +144,7 @@ export function renderDailyTable(rows: readonly DailyRow[], mode: DayMode, total
     { header: 'contacts', align: 'right' },
     { header: 'contact time', align: 'right' },
     { header: recorder ? 'link capacity' : 'volume', align: 'right' },
+    { header: recorder ? 'expected capacity' : 'expected', align: 'right' },
   ];
   if (recorder) cols2.push({ header: 'delivered (from recorder)', align: 'right' });
   cols2.push({ header: 'station-sum time', align: 'right' }, { header: 'station-sum volume', align: 'right' });
@@ -143,7 +152,7 @@ export function renderDailyTable(rows: readonly DailyRow[], mode: DayMode, total
     renderTable(
       cols2,
       totals.map((t) => {
-        const r = [t.spacecraftId, String(t.contactCount), formatDuration(t.contactTimeS), formatBits(t.volumeBits)];
+        const r = [t.spacecraftId, String(t.contactCount), formatDuration(t.contactTimeS), formatBits(t.volumeBits), formatBits(t.expectedVolumeBits)];
         if (recorder) r.push(t.deliveredBits === undefined ? '-' : formatBits(t.deliveredBits));
         r.push(formatDuration(t.stationSumContactTimeS), formatBits(t.stationSumVolumeBits));
         return r;

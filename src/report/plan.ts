@@ -23,6 +23,7 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
 /** The terminal table in pieces, one station's table at a time (each piece ends its line). */
 export function* planTablePieces(plan: PlanResult, zone?: string): Generator<string> {
   const hasLink = plan.contacts.some((c) => c.link !== undefined);
+  const hasExpected = plan.contacts.some((c) => c.link?.expectedVolumeBits !== undefined);
   yield* lines(
     `Contact plan ${isoUtc(plan.span.startMs, 0)} .. ${isoUtc(plan.span.endMs, 0)}` +
       (hasLink ? `, link at ${plan.availabilityPercent} % availability, sampled every ${plan.linkStepS} s` : ''),
@@ -45,7 +46,9 @@ export function* planTablePieces(plan: PlanResult, zone?: string): Generator<str
       { header: 'az AOS', align: 'right' },
       { header: 'az LOS', align: 'right' },
     ];
-    if (hasLink) cols.push({ header: 'volume', align: 'right' }, { header: 'worst margin dB', align: 'right' });
+    if (hasLink) cols.push({ header: 'volume', align: 'right' });
+    if (hasExpected) cols.push({ header: 'expected', align: 'right' });
+    if (hasLink) cols.push({ header: 'worst margin dB', align: 'right' });
     const body = rows.map((c) => {
       const r = [
         c.spacecraftId,
@@ -57,32 +60,42 @@ export function* planTablePieces(plan: PlanResult, zone?: string): Generator<str
         fixed(c.aosAzimuthDeg, 0),
         fixed(c.losAzimuthDeg, 0),
       ];
-      if (hasLink) r.push(c.link ? formatBits(c.link.volumeBits) : '-', c.link ? fixed(c.link.worstMarginDb, 1) : '-');
+      if (hasLink) r.push(c.link ? formatBits(c.link.volumeBits) : '-');
+      if (hasExpected) r.push(c.link?.expectedVolumeBits !== undefined ? formatBits(c.link.expectedVolumeBits) : '-');
+      if (hasLink) r.push(c.link ? fixed(c.link.worstMarginDb, 1) : '-');
       return r;
     });
     yield* lines(indent(renderTable(cols, body)));
-    yield* lines(`  ${summaryLine(rows, hasLink)}`);
+    yield* lines(`  ${summaryLine(rows, hasLink, hasExpected)}`);
   }
   const clipped = plan.contacts.some((c) => c.aosClipped || c.losClipped);
   yield* lines('');
-  yield* lines(`All stations (station sum): ${summaryLine(plan.contacts, hasLink)}`);
+  yield* lines(`All stations (station sum): ${summaryLine(plan.contacts, hasLink, hasExpected)}`);
   const once = uniqueVolumes(
     plan.spacecraft.map((s) => s.id),
     plan.contacts,
   );
   yield* lines(
     `Counted once per spacecraft radio (best station at each instant, union of windows): contact time ${formatDuration(once.reduce((s, u) => s + u.contactTimeS, 0))}` +
-      (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : ''),
+      (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : '') +
+      (hasExpected ? `, expected ${formatBits(once.reduce((s, u) => s + u.expectedVolumeBits, 0))}` : ''),
   );
+  if (hasExpected) {
+    yield* lines(
+      `"volume": at ${plan.availabilityPercent} % availability (the atmosphere exceeded ${Number((100 - plan.availabilityPercent).toPrecision(12))} % of an average year); ` +
+        '"expected": the mean over an average year\'s attenuation statistics (README, "Expected volume").',
+    );
+  }
   if (clipped) yield* lines('"<" / ">": window cut by the start / end of the span.');
 }
 
 const lines = (...text: string[]): string[] => text.map((l) => `${l}\n`);
 
-function summaryLine(rows: Contact[], hasLink: boolean): string {
+function summaryLine(rows: Contact[], hasLink: boolean, hasExpected: boolean): string {
   const totalS = rows.reduce((s, c) => s + c.durationS, 0);
   let line = `${rows.length} window${rows.length === 1 ? '' : 's'}, contact time ${formatDuration(totalS)}`;
   if (hasLink) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
+  if (hasExpected) line += `, expected ${formatBits(rows.reduce((s, c) => s + (c.link?.expectedVolumeBits ?? c.link?.volumeBits ?? 0), 0))}`;
   return line;
 }
 
@@ -97,17 +110,25 @@ type Cell = string | number | boolean | null;
 
 /**
  * One column of the contact outputs (contacts.csv, plan.json, contacts.jsonl): its key
- * and its value with fixed rounding. `link` columns exist only for a contact with a link.
+ * and its value with fixed rounding; a column a contact lacks (a link's, without a link) is
+ * left out of its record.
  * This list is the one place that says which columns there are and in which order.
  */
 export interface ContactColumn {
   key: string;
-  link: boolean;
+  /** Whether the contact has this column (every contact, one with a link, ...). */
+  present: (c: Contact) => boolean;
   value: (c: Contact) => Cell;
 }
 
-const base = (key: string, value: (c: Contact) => Cell): ContactColumn => ({ key, link: false, value });
-const linked = (key: string, value: (l: NonNullable<Contact['link']>) => Cell): ContactColumn => ({ key, link: true, value: (c) => value(c.link!) });
+type Link = NonNullable<Contact['link']>;
+const always = (): boolean => true;
+const base = (key: string, value: (c: Contact) => Cell): ContactColumn => ({ key, present: always, value });
+const linked = (key: string, value: (l: Link) => Cell, when: (l: Link) => boolean = always): ContactColumn => ({
+  key,
+  present: (c) => c.link !== undefined && when(c.link),
+  value: (c) => value(c.link!),
+});
 
 export const CONTACT_COLUMNS: readonly ContactColumn[] = [
   base('station', (c) => c.stationId),
@@ -123,6 +144,11 @@ export const CONTACT_COLUMNS: readonly ContactColumn[] = [
   base('los_clipped', (c) => c.losClipped),
   linked('radio', (l) => l.radioId),
   linked('volume_bits', (l) => Math.round(l.volumeBits)),
+  linked(
+    'expected_volume_bits',
+    (l) => l.expectedVolumeBits ?? null,
+    (l) => l.expectedVolumeBits !== undefined,
+  ),
   linked('closed_s', (l) => round(l.closedS, 1)),
   linked('worst_margin_db', (l) => round(l.worstMarginDb, 2)),
   linked('worst_margin_utc', (l) => isoUtc(l.worstMarginAtMs, 3)),
@@ -133,7 +159,7 @@ export const CONTACT_COLUMNS: readonly ContactColumn[] = [
 /** One contact as a plain record with fixed rounding (JSON and CSV share it). */
 export function contactRecord(c: Contact): Record<string, Cell> {
   const rec: Record<string, Cell> = {};
-  for (const col of CONTACT_COLUMNS) if (!col.link || c.link) rec[col.key] = col.value(c);
+  for (const col of CONTACT_COLUMNS) if (col.present(c)) rec[col.key] = col.value(c);
   return rec;
 }
 
@@ -141,12 +167,14 @@ export function contactRecord(c: Contact): Record<string, Cell> {
 export function contactJson(c: Contact): Record<string, unknown> {
   return {
     ...contactRecord(c),
+    ...(c.link?.expectedVolumeBoundBits !== undefined ? { expected_volume_bound_bits: Math.ceil(c.link.expectedVolumeBoundBits) } : {}),
     ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
     ...(c.otherLinks
       ? {
           other_radios: c.otherLinks.map((l) => ({
             radio: l.radioId,
             volume_bits: l.volumeBits,
+            ...(l.expectedVolumeBits !== undefined ? { expected_volume_bits: l.expectedVolumeBits } : {}),
             worst_margin_db: round(l.worstMarginDb, 2),
             peak_rate_bps: Math.round(l.peakRateBps),
           })),
@@ -198,21 +226,40 @@ function csvField(v: Cell | undefined): string {
 
 const EMPTY_CSV = 'station,spacecraft,aos_utc,tca_utc,los_utc,duration_s,max_elevation_deg\n';
 
-/** contacts.csv in pieces, row by row: the link columns when any contact has a link. */
+/**
+ * The CSV columns: every column some contact has, in first-seen order (the first contact's
+ * columns, then any column a later contact adds, at the end), found over the few distinct
+ * sets of columns the contacts have.
+ */
+function csvColumns(contacts: readonly Contact[]): ContactColumn[] {
+  const seenSets = new Set<bigint>();
+  const columns: ContactColumn[] = [];
+  for (const c of contacts) {
+    let set = 0n;
+    for (let j = 0; j < CONTACT_COLUMNS.length; j++) if (CONTACT_COLUMNS[j]!.present(c)) set |= 1n << BigInt(j);
+    if (seenSets.has(set)) continue;
+    seenSets.add(set);
+    CONTACT_COLUMNS.forEach((col, j) => {
+      if (set & (1n << BigInt(j)) && !columns.includes(col)) columns.push(col);
+    });
+  }
+  return columns;
+}
+
+/** contacts.csv in pieces, row by row. */
 export function* planCsvPieces(plan: PlanResult): Generator<string> {
   if (plan.contacts.length === 0) {
     yield EMPTY_CSV;
     return;
   }
-  const withLink = plan.contacts.some((c) => c.link !== undefined);
-  const columns = CONTACT_COLUMNS.filter((col) => withLink || !col.link);
+  const columns = csvColumns(plan.contacts);
   yield `${columns.map((col) => col.key).join(',')}\n`;
   for (const c of plan.contacts) {
     let row = '';
     for (let j = 0; j < columns.length; j++) {
       const col = columns[j]!;
       if (j > 0) row += ',';
-      if (!col.link || c.link) row += csvField(col.value(c));
+      if (col.present(c)) row += csvField(col.value(c));
     }
     yield `${row}\n`;
   }

@@ -1,7 +1,7 @@
 /**
  * A shard's partial result as a file (`plan --shard K/N` writes it, `merge` reads it with
  * scenario/shard-file.ts): a header line of JSON naming the format, the passbudget
- * version, the shard, the span, the link step and the spacecraft it holds, then the
+ * version, the shard, the span, the link step, the availability and the spacecraft it holds, then the
  * PlanResult in Node's structured-clone form (node:v8 serialize), which keeps every
  * number bit for bit (NaN, infinities, -0 included), so the merge gives the single run's
  * bytes.
@@ -19,6 +19,7 @@ export interface ShardHeader {
   fromMs: number;
   toMs: number;
   linkStepS: number;
+  availabilityPercent: number;
   spacecraft: string[];
 }
 

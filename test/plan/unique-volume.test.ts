@@ -51,6 +51,19 @@ describe('unique volume on the demo week', () => {
     expect(totals.find((t) => t.spacecraftId === 'HERON-2')!.volumeBits).toBe(totals.find((t) => t.spacecraftId === 'HERON-2')!.stationSumVolumeBits);
   });
 
+  it('the expected volume counted once: <= its station-sum, >= the best single contact, days add up', () => {
+    for (const t of totals) {
+      expect(t.expectedVolumeBits, t.spacecraftId).toBeLessThanOrEqual(t.stationSumExpectedVolumeBits);
+      const best = Math.max(...plan.contacts.filter((c) => c.spacecraftId === t.spacecraftId).map((c) => c.link?.expectedVolumeBits ?? 0));
+      expect(t.expectedVolumeBits, t.spacecraftId).toBeGreaterThanOrEqual(best);
+    }
+    const sumExpected = plan.contacts.reduce((s, c) => s + (c.link?.expectedVolumeBits ?? 0), 0);
+    expect(totals.reduce((s, t) => s + t.stationSumExpectedVolumeBits, 0)).toBe(sumExpected);
+    const days = allStationsDaily(plan, dailyTotals(plan, { kind: 'utc' }));
+    expect(days.reduce((s, d) => s + d.expectedVolumeBits, 0)).toBe(totals.reduce((s, t) => s + t.expectedVolumeBits, 0));
+    expect(days.reduce((s, d) => s + d.stationSumExpectedVolumeBits, 0)).toBe(sumExpected);
+  });
+
   it('the daily all-stations totals add up to the unique totals, whole bits', () => {
     const days = allStationsDaily(plan, dailyTotals(plan, { kind: 'utc' }));
     const onceSum = days.reduce((s, d) => s + d.volumeBits, 0);

@@ -14,9 +14,9 @@ import {
 } from './prepare.js';
 import type { AtmosphereInput, AtmosphereResult } from './types.js';
 
-export type { AtmosphereInput, AtmosphereResult, AtmosphereTable } from './types.js';
+export type { AtmosphereInput, AtmosphereResult, AtmosphereTable, ExceedanceLevelsTable } from './types.js';
 export { rainModelled, type AtmosphereStationInput } from './prepare.js';
-export { buildAtmosphereTable } from './table.js';
+export { buildAtmosphereTable, buildExceedanceLevelsTable } from './table.js';
 
 const scratch = newAtmospherePrepared();
 

@@ -171,12 +171,8 @@ export function rainAttenuationDetail(rp: RainPath, elevationDeg: number, d: Rai
   const le = lr * nu001;
   const a001 = gammaR * le;
   // Step 10
-  let beta: number;
-  if (p >= 1 || lat >= 36) beta = 0;
-  else if (elevationDeg >= 25) beta = -0.005 * (lat - 36);
-  else beta = -0.005 * (lat - 36) + 1.8 - 4.25 * sinEl;
-  const exponent = -(0.655 + 0.033 * Math.log(p) - 0.045 * Math.log(a001) - beta * (1 - p) * sinEl);
-  const ap = a001 * Math.pow(p / 0.01, exponent);
+  const beta = step10Beta(p, lat, elevationDeg, sinEl);
+  const ap = step10Scaling(a001, p, beta, sinEl);
   d.slantLengthKm = ls;
   d.horizontalProjectionKm = lg;
   d.gammaRDbPerKm = gammaR;
@@ -188,6 +184,28 @@ export function rainAttenuationDetail(rp: RainPath, elevationDeg: number, d: Rai
   d.beta = beta;
   d.attenuationDb = ap;
   return ap;
+}
+
+function step10Beta(p: number, absLatitudeDeg: number, elevationDeg: number, sinEl: number): number {
+  if (p >= 1 || absLatitudeDeg >= 36) return 0;
+  if (elevationDeg >= 25) return -0.005 * (absLatitudeDeg - 36);
+  return -0.005 * (absLatitudeDeg - 36) + 1.8 - 4.25 * sinEl;
+}
+
+function step10Scaling(a001: number, p: number, beta: number, sinEl: number): number {
+  const exponent = -(0.655 + 0.033 * Math.log(p) - 0.045 * Math.log(a001) - beta * (1 - p) * sinEl);
+  return a001 * Math.pow(p / 0.01, exponent);
+}
+
+/**
+ * Step 10 alone: Ap at another exceedance p (0.001..5 %) from a detail that
+ * rainAttenuationDetail filled at this elevation for the same path (steps 2-9 do not
+ * depend on p). Same result as rainAttenuationDetail at p, for a fraction of the work.
+ */
+export function rainAtExceedanceDb(rp: RainPath, d: RainDetail, elevationDeg: number, exceedancePercent: number): number {
+  if (!(d.a001Db > 0)) return 0;
+  const sinEl = Math.sin(elevationDeg * DEG_TO_RAD);
+  return step10Scaling(d.a001Db, exceedancePercent, step10Beta(exceedancePercent, rp.absLatitudeDeg, elevationDeg, sinEl), sinEl);
 }
 
 const scratchDetail = newRainDetail();

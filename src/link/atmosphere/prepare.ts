@@ -10,15 +10,15 @@
  *   Annex 2 reaches 350 GHz); exceedance 0.001..10 %; elevation 0..90°; and plausible
  *   ranges for the station and weather inputs listed in checkInput().
  * Rain: modelled when both rainRate001MmH and rainHeightKm are present (one without the
- * other is an error). P.618 rain is defined for p <= 5 %; for 5 < p <= 10 % we evaluate it at
- * p = 5 % (an upper bound, since Ap falls with p; the validation workbook shows 0 dB at
- * p = 20 % where P0 < p). Cloud: absent cloudLiquidWaterKgM2 -> 0 dB.
+ * other is an error). P.618 rain is defined for p <= 5 %; for 5 < p <= 10 % the total has no rain
+ * term (P.618-14 §2.5 Eq. 66: AT = AG + sqrt(AC^2 + AS^2) for 5 % < p <= 50 %; the validation
+ * workbook's CCDF rows show AR = 0 at p = 20 %). Cloud: absent cloudLiquidWaterKgM2 -> 0 dB.
  */
 
 import { ModelRangeError } from '../../errors.js';
 import { totalAttenuationDb } from './combine.js';
 import { gasSlantAttenuationDb, gasZenith, type GasZenith } from './p676.js';
-import { newRainPath, prepareRainPath, rainAttenuationDb, type RainPath } from './p618-rain.js';
+import { newRainDetail, newRainPath, prepareRainPath, rainAtExceedanceDb, rainAttenuationDb, rainAttenuationDetail, type RainPath } from './p618-rain.js';
 import {
   newScintillationPath,
   prepareScintillationPath,
@@ -34,7 +34,7 @@ export const MAX_FREQ_WITH_RAIN_GHZ = 55;
 export const MAX_FREQ_WITHOUT_RAIN_GHZ = 200;
 export const MIN_EXCEEDANCE_PERCENT = 0.001;
 export const MAX_EXCEEDANCE_PERCENT = 10;
-/** Upper limit of P.618-14 §2.2.1.1; rain is evaluated at min(p, this). */
+/** Upper limit of P.618-14 §2.2.1.1 and of Eq. 65; above it the total has no rain term (Eq. 66). */
 export const RAIN_MAX_EXCEEDANCE_PERCENT = 5;
 
 export type AtmosphereStationInput = Omit<AtmosphereInput, 'elevationDeg'>;
@@ -118,11 +118,11 @@ export function prepareAtmosphere(input: AtmosphereStationInput, out: Atmosphere
   if (!(out.gas.hOKm > 0)) {
     throw new ModelRangeError('ITU-R P.676-13 Annex 2', 'oxygen equivalent height (from surface inputs)', out.gas.hOKm, '> 0 km');
   }
-  out.rainModelled = withRain;
-  if (withRain) {
+  out.rainModelled = withRain && input.exceedancePercent <= RAIN_MAX_EXCEEDANCE_PERCENT;
+  if (out.rainModelled) {
     prepareRainPath(
       freqGhz,
-      Math.min(input.exceedancePercent, RAIN_MAX_EXCEEDANCE_PERCENT),
+      input.exceedancePercent,
       input.latitudeDeg,
       input.stationHeightKm,
       input.rainHeightKm as number,
@@ -156,6 +156,45 @@ export function evaluateTerms(prep: AtmospherePrepared, elevationDeg: number, ou
   out.rainDb = prep.rainModelled ? rainAttenuationDb(prep.rain, elevationDeg) : 0;
   out.cloudDb = prep.cloudZenithDb > 0 ? cloudAttenuationDb(prep.cloudZenithDb, 1, elevationDeg) : 0;
   out.scintillationDb = scintillationFadeDb(prep.scintillation, elevationDeg);
+}
+
+/** The absorptive terms AG + AR + AC at one elevation (no scintillation), dB. */
+export function absorptionDb(prep: AtmospherePrepared, elevationDeg: number): number {
+  const gas = gasSlantAttenuationDb(prep.gas, elevationDeg, prep.stationHeightKm);
+  const rain = prep.rainModelled ? rainAttenuationDb(prep.rain, elevationDeg) : 0;
+  const cloud = prep.cloudZenithDb > 0 ? cloudAttenuationDb(prep.cloudZenithDb, 1, elevationDeg) : 0;
+  return gas + rain + cloud;
+}
+
+/** True when two prepared rain paths differ only in their exceedance (steps 2-9 shared). */
+export function sameRainPath(a: AtmospherePrepared, b: AtmospherePrepared): boolean {
+  const x = a.rain;
+  const y = b.rain;
+  return (
+    a.rainModelled && b.rainModelled && x.freqGhz === y.freqGhz && x.absLatitudeDeg === y.absLatitudeDeg && x.stationHeightKm === y.stationHeightKm &&
+    x.rainHeightKm === y.rainHeightKm && x.rainRate001MmH === y.rainRate001MmH && x.polarizationTiltDeg === y.polarizationTiltDeg
+  );
+}
+
+const levelDetail = newRainDetail();
+
+/**
+ * absorptionDb of each of preps at one elevation into out; the rain of the levels that
+ * share the first rain level's path (sameRainPath) is scaled from its A0.01 (P.618-14 step
+ * 10) instead of recomputed.
+ */
+export function absorptionAtLevelsDb(preps: readonly AtmospherePrepared[], elevationDeg: number, out: number[]): void {
+  const first = preps.find((p) => p.rainModelled);
+  if (first) rainAttenuationDetail(first.rain, elevationDeg, levelDetail);
+  preps.forEach((prep, k) => {
+    if (!first || !prep.rainModelled || !sameRainPath(first, prep)) {
+      out[k] = absorptionDb(prep, elevationDeg);
+      return;
+    }
+    const gas = gasSlantAttenuationDb(prep.gas, elevationDeg, prep.stationHeightKm);
+    const cloud = prep.cloudZenithDb > 0 ? cloudAttenuationDb(prep.cloudZenithDb, 1, elevationDeg) : 0;
+    out[k] = gas + rainAtExceedanceDb(prep.rain, levelDetail, elevationDeg, prep.rain.exceedancePercent) + cloud;
+  });
 }
 
 /** Fills totalDb (P.618-14 §2.5) and skyNoiseTempK (§3, absorptive terms only) from the terms. */

@@ -45,3 +45,14 @@ export interface AtmosphereTable {
   readonly minElevationDeg: number;
   at(elevationDeg: number, out: AtmosphereResult): void;
 }
+
+/**
+ * One value per exceedance level (the absorptive attenuation gas + rain + cloud, dB, or what
+ * the builder made of it) of one station and frequency, precomputed on an elevation grid.
+ * `valuesAt` writes one value per level into `out` (length >= levels), allocates nothing.
+ */
+export interface ExceedanceLevelsTable {
+  readonly minElevationDeg: number;
+  readonly levels: number;
+  valuesAt(elevationDeg: number, out: Float64Array): void;
+}
