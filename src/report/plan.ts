@@ -1,6 +1,6 @@
 /**
- * Renders a plan: the terminal table per station, and the JSON and CSV forms
- * written under out/. Pure: returns strings; writing is write.ts's job.
+ * Renders a plan: the terminal table per station, and the JSON, JSON Lines and CSV forms
+ * written under out/, each in pieces (report/write.ts writes them as they are made).
  * Rounding is fixed (times to 0.1 s, angles to 0.01 deg, margins to 0.01 dB,
  * volumes to the bit) so the same inputs give byte-identical files.
  */
@@ -14,10 +14,6 @@ const round = (v: number, d: number) => (Number.isFinite(v) ? Number(v.toFixed(d
 
 function timeText(tMs: number, zone: string | undefined): string {
   return zone ? isoInZone(tMs, zone) : isoUtc(tMs, 1);
-}
-
-export function renderPlanTable(plan: PlanResult, zone?: string): string {
-  return [...planTablePieces(plan, zone)].join('');
 }
 
 /** The terminal table in pieces, one station's table at a time (each piece ends its line). */
@@ -201,10 +197,6 @@ export function planJsonPieces(plan: PlanResult, extra: Record<string, unknown> 
   return jsonPieces(doc);
 }
 
-export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> = {}): string {
-  return [...planJsonPieces(plan, extra)].join('');
-}
-
 /** contacts.jsonl: one contact per line, the same record as in plan.json. */
 export function contactsJsonLinesPieces(plan: PlanResult): Iterable<string> {
   return jsonLinesPieces(contactList(plan));
@@ -263,8 +255,4 @@ export function* planCsvPieces(plan: PlanResult): Generator<string> {
     }
     yield `${row}\n`;
   }
-}
-
-export function renderPlanCsv(plan: PlanResult): string {
-  return [...planCsvPieces(plan)].join('');
 }
