@@ -174,6 +174,8 @@ async function main(): Promise<void> {
   geometryBenchmark();
   await linkBenchmark();
   cliBenchmark();
+  const { bookingBenchmark } = await import('./booking-bench.js');
+  await bookingBenchmark();
 }
 
 // Run only when executed directly (link-bench.ts imports the helpers above).

@@ -57,6 +57,8 @@ export function syntheticScenario(spacecraft: number, stations: number, span: Sp
     span,
     link: { availabilityPercent: 99.5, acquisitionTimeS: 10, minDataElevationDeg: 0 },
     sources: { spacecraftFile: '(synthetic)', networkFile: '(synthetic)' },
+    inputFiles: [],
+    notices: [],
   };
 }
 
@@ -98,7 +100,7 @@ export async function linkBenchmark(spacecraft = 200, stations = 20, days = 7, s
 export function demoBenchmark(): void {
   const scenario = loadScenario(demoFiles());
   const span = scenario.span!;
-  console.log('\ndemo week (bundled invented scenario, 6 spacecraft x 6 stations x 7 days)');
+  console.log(`\ndemo week (bundled invented scenario, ${scenario.spacecraft.length} spacecraft x ${scenario.stations.length} stations x 7 days)`);
   // best of seven runs each, interleaved (the machine may be shared)
   const geo = timed(() => runPlan(scenario, span, { geometryOnly: true }));
   const full = timed(() => runPlan(scenario, span));

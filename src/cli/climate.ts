@@ -4,10 +4,10 @@ import { ScenarioError, UsageError, type Problem } from '../errors.js';
 import { stationClimate } from '../link/climate/station.js';
 import { linkExceedancePercent } from '../plan/link.js';
 import { renderClimateJson, renderClimateTable, type StationClimateReport } from '../report/climate.js';
-import { loadScenario } from '../scenario/load.js';
 import { demoFiles } from '../scenario/paths.js';
 import type { Scenario } from '../scenario/types.js';
 import type { CliIo } from './io.js';
+import { loadScenarioNoting, withExamples } from './options.js';
 import type { SetExit } from './commands.js';
 
 /** Every station's climate at the exceedance; all stations' problems at once (ScenarioError). */
@@ -27,16 +27,20 @@ export function climateReports(scenario: Scenario, exceedancePercent: number): S
 }
 
 export function registerClimate(program: Command, io: CliIo, setExit: SetExit): void {
-  program
+  const cmd = program
     .command('climate')
     .description('every climate input of each station: its value and where it came from (the file, or the ITU-R map and revision)')
-    .option('--network <file>', 'ground network file (JSON or YAML); default: the bundled demo network')
-    .option('--spacecraft <file>', 'spacecraft file whose link availability sets the exceedance; default: the bundled demo fleet')
-    .option('--availability <percent>', 'link availability, % (sets the exceedance the maps are read at); default: the spacecraft file\'s')
-    .addOption(new Option('--format <format>', 'output format').choices(['table', 'json']).default('table'))
-    .action((raw: { network?: string; spacecraft?: string; availability?: string; format: string }) => {
+    .option('--network <file>', 'ground network file (JSON or YAML) (default: the bundled demo network)')
+    .option('--spacecraft <file>', 'spacecraft file whose link availability sets the exceedance (default: the bundled demo fleet)')
+    .option('--availability <percent>', "link availability, % (sets the exceedance the maps are read at) (default: the spacecraft file's, else 99.5)")
+    .addOption(new Option('--format <format>', 'output format').choices(['table', 'json']).default('table'));
+  withExamples(cmd, [
+    ['passbudget climate', 'the climate inputs of the demo stations at the demo availability'],
+    ['passbudget climate --network net.yaml --availability 99.9', 'your stations, read from the ITU-R maps at 0.1 % exceedance'],
+    ['passbudget climate --network net.yaml --format json', 'the same as JSON'],
+  ]).action((raw: { network?: string; spacecraft?: string; availability?: string; format: string }) => {
       const demo = demoFiles();
-      const scenario = loadScenario({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile });
+      const scenario = loadScenarioNoting({ spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile }, io);
       let settings = scenario.link;
       if (raw.availability !== undefined) {
         const a = Number(raw.availability);

@@ -6,26 +6,27 @@
  */
 import type { Command } from 'commander';
 import type { CliIo } from './io.js';
-
 export type SetExit = (code: number) => void;
 
 type Register = (program: Command, io: CliIo, setExit: SetExit) => void;
 
-/** Command name -> its module's register function, in the order help lists them. */
-const COMMANDS: Record<string, () => Promise<Register>> = {
-  plan: async () => (await import('./plan.js')).registerPlan,
-  check: async () => (await import('./check.js')).registerCheck,
-  trace: async () => (await import('./trace.js')).registerTrace,
-  margin: async () => (await import('./margin.js')).registerMargin,
-  budget: async () => (await import('./budget.js')).registerBudget,
-  size: async () => (await import('./size.js')).registerSize,
-  climate: async () => (await import('./climate.js')).registerClimate,
-  merge: async () => (await import('./merge.js')).registerMerge,
-};
+/** Command modules in the order help lists them: the command names each registers, and its loader. */
+const MODULES: readonly (readonly [readonly string[], () => Promise<Register>])[] = [
+  [['plan'], async () => (await import('./plan.js')).registerPlan],
+  [['check'], async () => (await import('./check.js')).registerCheck],
+  [['trace'], async () => (await import('./trace.js')).registerTrace],
+  [['margin'], async () => (await import('./margin.js')).registerMargin],
+  [['budget'], async () => (await import('./budget.js')).registerBudget],
+  [['size'], async () => (await import('./size.js')).registerSize],
+  [['climate'], async () => (await import('./climate.js')).registerClimate],
+  [['merge'], async () => (await import('./merge.js')).registerMerge],
+  [['schema', 'codes'], async () => (await import('./reference.js')).registerReference],
+];
 
 export async function registerCommands(program: Command, io: CliIo, setExit: SetExit, argv: readonly string[] = []): Promise<void> {
   const first = argv[0];
-  const names = first !== undefined && Object.hasOwn(COMMANDS, first) ? [first] : Object.keys(COMMANDS);
-  const registers = await Promise.all(names.map((n) => COMMANDS[n]!()));
+  const named = MODULES.filter(([names]) => first !== undefined && names.includes(first));
+  const chosen = named.length > 0 ? named : MODULES;
+  const registers = await Promise.all(chosen.map(([, load]) => load()));
   for (const register of registers) register(program, io, setExit);
 }

@@ -25,7 +25,16 @@ export async function run(argv: string[], io: CliIo = processIo): Promise<number
     .version(packageVersion(), '-V, --version', 'print the version of passbudget')
     .exitOverride()
     .configureOutput({ writeOut: (s) => io.out(s), writeErr: (s) => io.err(s) })
-    .showHelpAfterError(false);
+    .showHelpAfterError(false)
+    .addHelpText(
+      'after',
+      '\nFirst steps:\n' +
+        '  $ passbudget plan                      the bundled demo week (invented fleet and network)\n' +
+        '  $ passbudget check --spacecraft examples/cubesat.yaml --network examples/one-dish.yaml\n' +
+        '  $ passbudget plan --spacecraft examples/cubesat.yaml --network examples/one-dish.yaml --no-write\n' +
+        '  $ passbudget schema spacecraft         the field reference, as JSON Schema\n' +
+        '  $ passbudget <command> --help          defaults and examples of each command\n',
+    );
   try {
     await registerCommands(
       program,

@@ -4,25 +4,33 @@
  * <out>/margin.csv and <out>/margin.json, and exits 1 when any row fails.
  */
 import type { Command } from 'commander';
-import { loadScenario } from '../scenario/load.js';
 import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
 import { marginGatePasses, marginRows } from '../plan/margin.js';
 import { renderMarginCsv, renderMarginJson, renderMarginTable, type MarginReport } from '../report/margin.js';
 import { writeOutputs } from '../report/write.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability, loadScenarioNoting, withExamples } from './options.js';
+import { DEFAULT_LINK_STEP_S } from '../plan/link.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
 export function registerMargin(program: Command, io: CliIo, setExit: SetExit): void {
-  addCommonOptions(
-    program
-      .command('margin')
-      .description('worst-case elevation margin per station and spacecraft, the usable data mask, and the worst margin seen; exit 1 on a failure'),
+  withExamples(
+    addCommonOptions(
+      program
+        .command('margin')
+        .description('worst-case elevation margin per station and spacecraft, the usable data mask, and the worst margin seen; exit 1 on a failure'),
+      { formats: ['table', 'json', 'csv'], step: `link sampling step inside contacts for the worst margin seen, e.g. 10s (default: ${DEFAULT_LINK_STEP_S}s)` },
+    ),
+    [
+      ['passbudget margin', 'the demo: one row per station and spacecraft, PASS or FAIL, margin.json and margin.csv under out/'],
+      ['passbudget margin --spacecraft fleet.yaml --network net.yaml --no-write || echo "a link fails"', 'gate a design review or a CI job on the exit code (1 on a failure)'],
+      ['passbudget margin --format json --no-write', 'the same rows as JSON on stdout'],
+    ],
   ).action(async (raw) => {
     const opts = readCommonOptions(raw);
     prepareOutput(opts, io, ['margin.json', 'margin.csv']);
-    const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
+    const scenario = withAvailability(loadScenarioNoting(opts.files, io), opts.availabilityPercent);
     const span = spanFor(opts, scenario, io);
     assertPreflight(scenario, span); // file and field of a model-range problem, before any work
     const plan = await withNamedProblems(scenario, span, () => runPlanParallel(scenario, span, opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}));

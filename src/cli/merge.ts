@@ -13,11 +13,11 @@ import { DEFAULT_LINK_STEP_S } from '../plan/link.js';
 import { shardScenario } from '../plan/shard.js';
 import { planWeek, weekReportParts } from '../plan/week.js';
 import type { DayMode } from '../plan/daily.js';
-import { loadScenario } from '../scenario/load.js';
 import { packageVersion } from '../scenario/paths.js';
 import { readShardFile, shardPaths, type ShardFile } from '../scenario/shard-file.js';
 import { isoUtc } from '../time/format.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
+import { addCommonOptions, loadScenarioNoting, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
+import { readBooking, runBooking } from './booking.js';
 import { emitWeek, PLAN_OUTPUTS } from './plan-output.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
@@ -58,16 +58,19 @@ export function registerMerge(program: Command, io: CliIo, setExit: SetExit): vo
       .command('merge')
       .argument('<paths...>', 'folders (or files) holding the shard-K-of-N.pbshard files of plan --shard K/N')
       .description('combine the partial results of plan --shard K/N into the outputs of the single plan run'),
+    { formats: ['table', 'json', 'csv'], step: `the link sampling step the shards used (default: ${DEFAULT_LINK_STEP_S}s)` },
   )
     .option('--local-days', "daily totals over each station's local days (its IANA zone) instead of UTC days")
     .option('--schedule', 'deconflict antennas (priority x volume), show only the windows taken, simulate the onboard recorders')
     .option('--one-station-at-a-time', 'with --schedule: a spacecraft downlinks to one station at a time')
     .option('--stats', 'print the work done on stderr: contacts, link samples, SGP4 propagations')
-    .action(async (paths: string[], raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean; stats?: boolean }) => {
+    .option('--booking <file>', 'book track periods by the rules of this file (requirements, station rules, antenna mechanics) instead of whole windows')
+    .action(async (paths: string[], raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean; stats?: boolean; booking?: string }) => {
       const opts = readCommonOptions(raw);
       prepareOutput(opts, io, PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
-      const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
+      const scenario = withAvailability(loadScenarioNoting(opts.files, io), opts.availabilityPercent);
+      const rules = await readBooking(raw.booking, scenario);
       const span = spanFor(opts, scenario, io);
       const version = packageVersion();
       const shards = shardPaths(paths).map((f) => readShardFile(f, version));
@@ -78,8 +81,9 @@ export function registerMerge(program: Command, io: CliIo, setExit: SetExit): vo
         span,
         shards.map((s) => s.part),
       );
-      const week = planWeek(scenario, unscheduled, { dayMode, schedule: Boolean(raw.schedule), oneStationAtATime: Boolean(raw.oneStationAtATime) });
-      await emitWeek(io, opts, week, () => weekReportParts(scenario, span, week), Boolean(raw.stats));
-      setExit(0);
+      const booked = rules ? await runBooking(unscheduled, scenario, rules) : undefined;
+      const week = planWeek(scenario, unscheduled, { dayMode, schedule: Boolean(raw.schedule), oneStationAtATime: Boolean(raw.oneStationAtATime) }, booked);
+      await emitWeek(io, opts, week, () => weekReportParts(scenario, span, week), Boolean(raw.stats), booked);
+      setExit(booked ? booked.exitCode : 0);
     });
 }

@@ -6,7 +6,7 @@ import { Command, Option } from 'commander';
 import { IANAZone } from 'luxon';
 import { UsageError } from '../errors.js';
 import { demoFiles } from '../scenario/paths.js';
-import { INSTANT_RANGE_TEXT, parseInstant, type ScenarioFiles } from '../scenario/load.js';
+import { INSTANT_RANGE_TEXT, loadScenario, parseInstant, type ScenarioFiles } from '../scenario/load.js';
 import { parseDurationS } from '../time/duration.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import type { CliIo } from './io.js';
@@ -63,16 +63,24 @@ export function withAvailability(scenario: Scenario, availabilityPercent: number
   return scenario;
 }
 
-export function addCommonOptions(cmd: Command): Command {
+export interface CommonOptionSet {
+  /** The formats this command prints (the first is the default); none: no --format flag. */
+  formats: readonly Format[];
+  /** What --step means here and its default, for the help text. */
+  step: string;
+}
+
+export function addCommonOptions(cmd: Command, set: CommonOptionSet): Command {
+  cmd
+    .option('--spacecraft <file>', 'spacecraft file (JSON or YAML) (default: the bundled demo fleet)')
+    .option('--network <file>', 'ground network file (JSON or YAML) (default: the bundled demo network)')
+    .option('--from <iso>', "start of the window, ISO 8601, UTC unless a zone is given (default: the spacecraft file's window, else today 00:00 UTC)")
+    .option('--days <n>', "length of the window in days (default: the spacecraft file's window, else 7)")
+    .option('--step <duration>', set.step)
+    .option('--out <dir>', 'output folder', 'out');
+  if (set.formats.length > 0) cmd.addOption(new Option('--format <format>', 'terminal output format').choices([...set.formats]).default(set.formats[0]));
   return cmd
-    .option('--spacecraft <file>', 'spacecraft file (JSON or YAML); default: the bundled demo fleet')
-    .option('--network <file>', 'ground network file (JSON or YAML); default: the bundled demo network')
-    .option('--from <iso>', 'start of the window, ISO 8601 (UTC unless a zone is given)')
-    .option('--days <n>', 'length of the window in days')
-    .option('--step <duration>', 'time step, e.g. 10s, 1m')
-    .option('--out <dir>', 'output folder', 'out')
-    .addOption(new Option('--format <format>', 'terminal output format').choices(['table', 'json', 'csv']).default('table'))
-    .option('--zone <iana>', 'show times and days in this IANA time zone')
+    .option('--zone <iana>', 'show times and days in this IANA time zone (default: UTC)')
     .option('--availability <percent>', AVAILABILITY_HELP)
     .option('--no-write', 'print only; write no files under --out');
 }
@@ -84,7 +92,7 @@ interface RawOptions {
   days?: string;
   step?: string;
   out: string;
-  format: Format;
+  format?: Format;
   zone?: string;
   write: boolean;
   availability?: string;
@@ -95,7 +103,7 @@ export function readCommonOptions(raw: RawOptions): CommonOptions {
   const opts: CommonOptions = {
     files: { spacecraftFile: raw.spacecraft ?? demo.spacecraftFile, networkFile: raw.network ?? demo.networkFile },
     outDir: raw.out,
-    format: raw.format,
+    format: raw.format ?? 'table',
     write: raw.write,
   };
   if (raw.from !== undefined) {
@@ -180,4 +188,17 @@ export function parseShardFlag(text: string): ShardSpec {
     throw new UsageError(`--shard: ${JSON.stringify(text)} must be K/N with 1 <= K <= N <= ${MAX_SHARDS} (e.g. 3/8)`);
   }
   return { index, count };
+}
+
+/** Loads the scenario (every problem at once, ScenarioError) and prints its notes and warnings to stderr. */
+export function loadScenarioNoting(files: ScenarioFiles, io: CliIo): Scenario {
+  const scenario = loadScenario(files);
+  for (const n of scenario.notices) io.err(`${n.level}: ${n.message}\n`);
+  return scenario;
+}
+
+/** Appends "Examples:" to a command's --help: [command line, what it does]. */
+export function withExamples(cmd: Command, examples: readonly (readonly [string, string])[]): Command {
+  const lines = examples.map(([line, what]) => `  $ ${line}\n      ${what}`);
+  return cmd.addHelpText('after', `\nExamples:\n${lines.join('\n')}\n`);
 }

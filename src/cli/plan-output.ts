@@ -3,7 +3,7 @@
  * the terminal output, the warnings, and the files under --out, each made in pieces while
  * it is written (report/write.ts: all or nothing).
  */
-import { planTablePieces, planJsonPieces, planCsvPieces, contactsJsonLinesPieces } from '../report/plan.js';
+import { planTablePieces, planJsonPieces, planCsvPieces, contactsJsonLinesPieces, renderSunOutagesCsv } from '../report/plan.js';
 import { writeOutputs, type OutputFile } from '../report/write.js';
 import { allStationsDayRecord, dailyRecord, renderDailyCsv, renderDailyTable, spacecraftTotalRecord } from '../report/daily.js';
 import { calendarFiles } from '../report/calendar.js';
@@ -13,22 +13,25 @@ import { recorderJson, renderRecorderCsv, renderRecorderSvg, renderRecorderTable
 import type { Week, WeekReportParts } from '../plan/week.js';
 import { outPieces, type CliIo } from './io.js';
 import type { CommonOptions } from './options.js';
+import { BOOKING_OUTPUTS, type BookingRun } from './booking.js';
 
 /** Fixed names plan writes (checked before the work: none may be a folder). */
-export const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'contacts.jsonl', 'daily.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg'];
+export const PLAN_OUTPUTS = ['plan.json', 'contacts.csv', 'contacts.jsonl', 'daily.csv', 'sun-outages.csv', 'contacts.ics', 'report.html', 'schedule.csv', 'recorder.csv', 'recorder.svg', ...BOOKING_OUTPUTS];
 
 /** A file made only when its turn to be written comes (its text is not held before). */
 function later(name: string, make: () => string): OutputFile {
   return { name, content: { *[Symbol.iterator]() { yield make(); } } };
 }
 
-export async function emitWeek(io: CliIo, opts: CommonOptions, week: Week, reportParts: () => WeekReportParts, stats: boolean): Promise<void> {
+/** Shows and writes the week; `booked` is the booking run the week was made with (plan/merge --booking). */
+export async function emitWeek(io: CliIo, opts: CommonOptions, week: Week, reportParts: () => WeekReportParts, stats: boolean, booked?: BookingRun): Promise<void> {
   const { plan, unscheduled, schedule, recorders, daily, dayMode, totals, allStations } = week;
   const jsonExtra = {
     daily: daily.map(dailyRecord),
     ...(allStations ? { daily_all_stations: allStations.map(allStationsDayRecord) } : {}),
     spacecraft_totals: totals.map(spacecraftTotalRecord),
     ...(schedule && recorders ? { schedule: scheduleJson(unscheduled, schedule, recorders), recorder: recorderJson(recorders) } : {}),
+    ...(booked ? { booking: booked.json, recorder: recorderJson(booked.recorders) } : {}),
   };
   if (opts.format === 'json') outPieces(io, planJsonPieces(plan, jsonExtra));
   else if (opts.format === 'csv') outPieces(io, planCsvPieces(plan));
@@ -37,6 +40,7 @@ export async function emitWeek(io: CliIo, opts: CommonOptions, week: Week, repor
     io.out('\n' + renderDailyTable(daily, dayMode, totals, allStations));
   }
   if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone, recorders) + '\n' + renderRecorderTable(recorders));
+  if (opts.format === 'table' && booked) io.out('\n' + booked.table(opts.zone) + '\n' + renderRecorderTable(booked.recorders));
   for (const w of plan.warnings) io.err(`warning: ${w}\n`);
   if (stats) io.err(`stats: ${plan.contacts.length} contacts, ${plan.stats.linkSamples} link samples, ${plan.stats.propagations} SGP4 propagations\n`);
   if (!opts.write) return;
@@ -45,6 +49,7 @@ export async function emitWeek(io: CliIo, opts: CommonOptions, week: Week, repor
     { name: 'contacts.csv', content: planCsvPieces(plan) },
     { name: 'contacts.jsonl', content: contactsJsonLinesPieces(plan) },
     { name: 'daily.csv', content: renderDailyCsv(daily) },
+    { name: 'sun-outages.csv', content: renderSunOutagesCsv(plan) },
     ...(schedule && recorders
       ? [
           { name: 'schedule.csv', content: renderScheduleCsv(unscheduled, schedule) },
@@ -52,6 +57,7 @@ export async function emitWeek(io: CliIo, opts: CommonOptions, week: Week, repor
           { name: 'recorder.svg', content: renderRecorderSvg(recorders) },
         ]
       : []),
+    ...(booked ? [...booked.files, { name: 'recorder.csv', content: renderRecorderCsv(booked.recorders) }, { name: 'recorder.svg', content: renderRecorderSvg(booked.recorders) }] : []),
     ...calendarFiles(plan),
     later('report.html', () => {
       const parts = reportParts();
@@ -70,6 +76,12 @@ export async function emitWeek(io: CliIo, opts: CommonOptions, week: Week, repor
           notVisible: m.result === 'not visible',
         })),
         ...(recorders ? { recorderSvg: renderRecorderSvg(recorders) } : {}),
+        passViews: parts.passViews,
+        losses: [
+          ...(schedule ? schedule.spacecraft.map((l) => ({ spacecraftId: l.spacecraftId, offeredBits: l.offeredBits, lostBits: l.lostBits, cause: 'the antenna schedule' })) : []),
+          ...(recorders ? recorders.tracks.map((t) => ({ spacecraftId: t.spacecraftId, offeredBits: t.generatedBits, lostBits: t.lostBits, cause: 'a full recorder' })) : []),
+        ],
+        provenance: parts.provenance,
       });
     }),
   ]);

@@ -1,13 +1,13 @@
 /** `passbudget plan`: contact windows, volume per contact, report files under --out. */
 import type { Command } from 'commander';
-import { loadScenario } from '../scenario/load.js';
 import { assertPreflight, withNamedProblems } from '../plan/preflight.js';
 import { runPlanParallel } from '../plan/parallel.js';
 import type { DayMode } from '../plan/daily.js';
 import { planWeek, weekReportParts } from '../plan/week.js';
 import { emitWeek, PLAN_OUTPUTS } from './plan-output.js';
 import { countHook, progressLine } from './progress.js';
-import { addCommonOptions, parseShardFlag, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
+import { addCommonOptions, parseShardFlag, prepareOutput, readCommonOptions, spanFor, withAvailability, loadScenarioNoting, withExamples } from './options.js';
+import { DEFAULT_LINK_STEP_S } from '../plan/link.js';
 import { shardScenario } from '../plan/shard.js';
 import { SHARD_FORMAT, shardFileContent, shardFileName, type ShardHeader } from '../report/shard.js';
 import { writeOutputs } from '../report/write.js';
@@ -15,23 +15,35 @@ import { packageVersion } from '../scenario/paths.js';
 import { UsageError } from '../errors.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
+import { readBooking, runBooking } from './booking.js';
 
 export function registerPlan(program: Command, io: CliIo, setExit: SetExit): void {
-  addCommonOptions(
-    program.command('plan').description('contact windows of every spacecraft over every station, with the data volume of each contact'),
+  withExamples(
+    addCommonOptions(program.command('plan').description('contact windows of every spacecraft over every station, with the data volume of each contact'), {
+      formats: ['table', 'json', 'csv'],
+      step: `link sampling step inside contacts, e.g. 10s, 1m (default: ${DEFAULT_LINK_STEP_S}s)`,
+    }),
+    [
+      ['passbudget plan', 'the bundled demo week: tables here, plan.json, contacts.csv, daily.csv, calendars and report.html under out/'],
+      ['passbudget plan --spacecraft fleet.yaml --network net.yaml --days 1 --no-write', 'one day of your own files, printed only'],
+      ['passbudget plan --schedule --step 10s --out week', 'antennas deconflicted and recorders simulated, 10 s link steps, files under week/'],
+    ],
   )
     .option('--local-days', "daily totals over each station's local days (its IANA zone) instead of UTC days")
     .option('--schedule', 'deconflict antennas (priority x volume), show only the windows taken, simulate the onboard recorders')
     .option('--one-station-at-a-time', 'with --schedule: a spacecraft downlinks to one station at a time')
     .option('--stats', 'print the work done on stderr: contacts, link samples, SGP4 propagations')
     .option('--shard <K/N>', 'plan only the spacecraft of shard K of N (stable by spacecraft id) and write that partial result; combine all N with `passbudget merge`')
-    .action(async (raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean; stats?: boolean; shard?: string }) => {
+    .option('--booking <file>', 'book track periods by the rules of this file (requirements, station rules, antenna mechanics) instead of whole windows')
+    .action(async (raw: Parameters<typeof readCommonOptions>[0] & { localDays?: boolean; schedule?: boolean; oneStationAtATime?: boolean; stats?: boolean; shard?: string; booking?: string }) => {
       const opts = readCommonOptions(raw);
       const shard = raw.shard !== undefined ? parseShardFlag(raw.shard) : undefined;
       if (shard && !opts.write) throw new UsageError('--shard writes its partial result under --out; it cannot be used with --no-write');
+      if (shard && raw.booking !== undefined) throw new UsageError('--shard plans the contacts only; give --booking to passbudget merge');
       prepareOutput(opts, io, shard ? [shardFileName(shard)] : PLAN_OUTPUTS);
       const dayMode: DayMode = raw.localDays ? { kind: 'local' } : { kind: 'utc' };
-      const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
+      const scenario = withAvailability(loadScenarioNoting(opts.files, io), opts.availabilityPercent);
+      const rules = await readBooking(raw.booking, scenario);
       const span = spanFor(opts, scenario, io);
       assertPreflight(scenario, span); // file and field of a model-range problem, before any work
       const progress = progressLine(io, 'plan');
@@ -59,8 +71,9 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
         setExit(0);
         return;
       }
-      const week = planWeek(scenario, unscheduled, { dayMode, schedule: Boolean(raw.schedule), oneStationAtATime: Boolean(raw.oneStationAtATime) });
-      await emitWeek(io, opts, week, () => weekReportParts(scenario, span, week), Boolean(raw.stats));
-      setExit(0);
+      const booked = rules ? await runBooking(unscheduled, scenario, rules) : undefined;
+      const week = planWeek(scenario, unscheduled, { dayMode, schedule: Boolean(raw.schedule), oneStationAtATime: Boolean(raw.oneStationAtATime) }, booked);
+      await emitWeek(io, opts, week, () => weekReportParts(scenario, span, week), Boolean(raw.stats), booked);
+      setExit(booked ? booked.exitCode : 0);
     });
 }

@@ -9,12 +9,11 @@
  */
 import { Option, type Command } from 'commander';
 import { UsageError } from '../errors.js';
-import { loadScenario } from '../scenario/load.js';
 import { assertPreflight } from '../plan/preflight.js';
 import { DEFAULT_SIZING_LINK_STEP_S, prepareSizingContext, sizeForWeek, sizePowerAtGeometry, type SolveFor, type VolumeBasis } from '../plan/sizing.js';
 import { pointSizingJson, renderPointSizingText, renderWeekSizingText, weekSizingJson } from '../report/sizing.js';
 import { writeOutputs } from '../report/write.js';
-import { addCommonOptions, withAvailability, numberFlag, prepareOutput, readGeometryOverrides, readCommonOptions, spanFor } from './options.js';
+import { addCommonOptions, withAvailability, numberFlag, prepareOutput, readGeometryOverrides, readCommonOptions, spanFor, loadScenarioNoting, withExamples } from './options.js';
 import type { CliIo } from './io.js';
 import type { SetExit } from './commands.js';
 
@@ -36,10 +35,18 @@ interface SizeRaw {
 }
 
 export function registerSize(program: Command, io: CliIo, setExit: SetExit): void {
-  addCommonOptions(
-    program
-      .command('size')
-      .description('inverse: the transmit power, dish or symbol rate that reaches a daily volume (week) or a rate (one geometry)'),
+  withExamples(
+    addCommonOptions(
+      program
+        .command('size')
+        .description('inverse: the transmit power, dish or symbol rate that reaches a daily volume (week) or a rate (one geometry)'),
+      { formats: ['table', 'json'], step: `link sampling step inside contacts, e.g. 30s (default: ${DEFAULT_SIZING_LINK_STEP_S}s)` },
+    ),
+    [
+      ['passbudget size --spacecraft-id KESTREL-1 --target-gbit-per-day 100', 'the transmit power that delivers 100 Gbit a day over the demo week'],
+      ['passbudget size --spacecraft-id KESTREL-1 --target-gbit-per-day 400 --solve dish --station-id FRV', "the dish FRV needs for 400 Gbit a day"],
+      ['passbudget size --spacecraft-id KESTREL-1 --station-id FRV --elevation 10 --target-rate-bps 5e7', 'the power for 50 Mbit/s at 10 deg elevation'],
+    ],
   )
     .requiredOption('--spacecraft-id <id>', 'spacecraft whose link is sized')
     .option('--target-gbit-per-day <x>', 'week mode: daily volume to reach, Gbit per day (mean over the span)')
@@ -59,10 +66,8 @@ export function registerSize(program: Command, io: CliIo, setExit: SetExit): voi
     .option('--extra-loss-db <dB>', 'one-geometry mode: other losses to include, dB')
     .action(async (raw: Parameters<typeof readCommonOptions>[0] & SizeRaw) => {
       const opts = readCommonOptions(raw);
-      if (opts.format === 'csv') throw new UsageError('--format: size prints table or json');
       prepareOutput(opts, io, ['sizing.json']);
-      const scenario = loadScenario(opts.files);
-      withAvailability(scenario, opts.availabilityPercent);
+      const scenario = withAvailability(loadScenarioNoting(opts.files, io), opts.availabilityPercent);
       const rate = numberFlag('--target-rate-bps', raw.targetRateBps, 1e-3, 1e12);
       const target = numberFlag('--target-gbit-per-day', raw.targetGbitPerDay, 1e-9, 1e9);
       let text: string;

@@ -2,17 +2,16 @@
  * `passbudget trace`: geometry and link budget at every step for one
  * spacecraft-station pair (--spacecraft-id and --station-id), one spacecraft or
  * one station against all of the other kind, or everything. CSV only: streamed to
- * <out>/trace.csv (atomic), or to stdout with --no-write or --format csv.
+ * <out>/trace.csv or --output FILE (atomic), or to stdout with --output - (or --no-write).
  */
 import { once } from 'node:events';
-import { join } from 'node:path';
+import { basename, dirname, join } from 'node:path';
 import type { Command } from 'commander';
 import { UsageError } from '../errors.js';
-import { loadScenario } from '../scenario/load.js';
 import { assertPreflight } from '../plan/preflight.js';
 import { DEFAULT_TRACE_STEP_S, prepareTrace, traceRows, traceSelectionProblems, type TraceOptions } from '../plan/trace.js';
 import { streamTraceCsv, traceTimeDecimals, writeTraceFile } from '../report/trace.js';
-import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability } from './options.js';
+import { addCommonOptions, prepareOutput, readCommonOptions, spanFor, withAvailability, loadScenarioNoting, withExamples } from './options.js';
 import { processIo, type CliIo } from './io.js';
 import { progressLine } from './progress.js';
 import type { SetExit } from './commands.js';
@@ -47,22 +46,34 @@ function stdoutSink(io: CliIo): { write(chunk: string): Promise<void>; closed():
 }
 
 export function registerTrace(program: Command, io: CliIo, setExit: SetExit): void {
-  addCommonOptions(
-    program
-      .command('trace')
-      .description(
-        'time series of look angles and link budget per step as CSV (one pair, one spacecraft, one station, or everything); ' +
-          'written to <out>/trace.csv, or to stdout with --no-write or --format csv',
-      )
-      .option('--spacecraft-id <id>', 'only this spacecraft (default: all)')
-      .option('--station-id <id>', 'only this station (default: all)')
-      .option('--in-contact', 'keep only the rows inside contact windows'),
+  withExamples(
+    addCommonOptions(
+      program
+        .command('trace')
+        .description(
+          'time series of look angles and link budget per step as CSV (one pair, one spacecraft, one station, or everything); ' +
+            'written to <out>/trace.csv, another file with --output, or stdout with --output -',
+        )
+        .option('--spacecraft-id <id>', 'only this spacecraft (default: all)')
+        .option('--station-id <id>', 'only this station (default: all)')
+        .option('--in-contact', 'keep only the rows inside contact windows')
+        .option('--output <file>', 'CSV file to write, "-" for stdout (default: <out>/trace.csv)'),
+      { formats: [], step: `time step, e.g. 1s, 1m (default: ${DEFAULT_TRACE_STEP_S}s)` },
+    ),
+    [
+      ['passbudget trace --spacecraft-id KESTREL-1 --station-id FRV --days 1 --in-contact --output -', 'one pair, one day, the rows inside contacts, on stdout'],
+      ['passbudget trace --spacecraft-id KESTREL-1 --step 1s --output kestrel.csv', 'one spacecraft against every station at 1 s, to kestrel.csv'],
+      ['passbudget trace', 'everything in the demo week at 10 s, to out/trace.csv'],
+    ],
   ).action(async (raw) => {
     const opts = readCommonOptions(raw);
-    if (opts.format === 'json') throw new UsageError('--format: trace writes CSV only (use --format csv for stdout)');
     if (opts.zone !== undefined) throw new UsageError('--zone: trace times are always UTC (column time_utc)');
-    if (opts.format !== 'csv') prepareOutput(opts, io, ['trace.csv']);
-    const scenario = withAvailability(loadScenario(opts.files), opts.availabilityPercent);
+    const output = typeof raw.output === 'string' ? raw.output : undefined;
+    if (output === '') throw new UsageError('--output: "" is not a file name; valid: a file path, or "-" for stdout');
+    const toStdout = !opts.write || output === '-';
+    const file = output !== undefined && output !== '-' ? output : join(opts.outDir, 'trace.csv');
+    if (!toStdout) prepareOutput({ ...opts, outDir: dirname(file) }, io, [basename(file)]);
+    const scenario = withAvailability(loadScenarioNoting(opts.files, io), opts.availabilityPercent);
     const span = spanFor(opts, scenario, io);
     assertPreflight(scenario, span); // file and field of a model-range problem, before any work
     const traceOpts: TraceOptions = { stepS: opts.stepS ?? DEFAULT_TRACE_STEP_S, inContactOnly: raw.inContact === true };
@@ -74,7 +85,6 @@ export function registerTrace(program: Command, io: CliIo, setExit: SetExit): vo
     traceOpts.onProgress = (p) =>
       progress.update(`spacecraft ${p.spacecraftIndex}/${p.spacecraftCount} (${p.spacecraftId}) ${Math.floor(p.fraction * 100)} %`, p.fraction === 0);
     const trace = prepareTrace(scenario, span, traceOpts);
-    const toStdout = !opts.write || opts.format === 'csv';
     try {
       if (toStdout) {
         const sink = stdoutSink(io);
@@ -86,7 +96,7 @@ export function registerTrace(program: Command, io: CliIo, setExit: SetExit): vo
           sink.dispose();
         }
       } else {
-        const written = await writeTraceFile(join(opts.outDir, 'trace.csv'), trace, traceRows(trace));
+        const written = await writeTraceFile(file, trace, traceRows(trace));
         progress.end();
         io.out(
           `wrote ${written.path}: ${written.rows} rows (${trace.spacecraftIds.length} spacecraft x ${trace.stationIds.length} stations, ` +

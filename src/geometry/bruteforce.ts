@@ -2,7 +2,7 @@
  * Brute-force contact windows: the slow, obvious scan the fast search is tested and
  * benchmarked against. Every `stepS` from span start to span end (inclusive) the target
  * is propagated once and every site evaluated; a window is a maximal run of samples with
- * g = elevation - mask(azimuth) > 0. AOS is its first sample, LOS its last, the peak its
+ * g = elevation - mask(azimuth) > 0 (and the target's own margin of sight > 0, as in passes.ts). AOS is its first sample, LOS its last, the peak its
  * highest-elevation sample (so each is exact to within one step). A window open at the
  * first (last) sample is aosClipped (losClipped). When the state fails, open windows end
  * at the last good sample (losTrackEnded) and the scan stops.
@@ -61,7 +61,8 @@ export function findPassesBruteForce(
     }
     for (let i = 0; i < n; i++) {
       lookFrom(sites[i]!, state, look);
-      const g = look.elevationDeg - maskElevationDeg(prepared[i]!, look.azimuthDeg);
+      let g = look.elevationDeg - maskElevationDeg(prepared[i]!, look.azimuthDeg);
+      if (target.sightMarginDeg) g = Math.min(g, target.sightMarginDeg(sites[i]!.ecefKm));
       if (g > 0) {
         if (!open[i]) {
           open[i] = 1;

@@ -77,3 +77,24 @@ export function temeToEcef(
 ): void {
   inertialOfDateToEcef(rTeme, vTeme, gmstRad, out);
 }
+
+/** Unix ms of J2000.0 (2000-01-01T12:00:00 UT). */
+const J2000_UNIX_MS = 946_728_000_000;
+const MS_PER_JULIAN_CENTURY = 36525 * MS_PER_DAY;
+
+/**
+ * GMST (IAU-1982, Vallado 4th ed. eq. 3-45, the expression satellite.js `gstime` uses),
+ * rad in [0, 2 pi), with the time argument formed from epoch ms directly: no Julian-date
+ * rounding (a Julian date near 2.46e6 holds time to ~47 us, a 3.4e-9 rad step of the
+ * angle; harmless near the Earth, but it shakes a range rate at 1 AU by cm/s).
+ */
+export function gmstRadPrecise(tMs: number): number {
+  const t = (tMs - J2000_UNIX_MS) / MS_PER_JULIAN_CENTURY;
+  // seconds of time: 67310.54841 + (876600 h + 8640184.812866 s) T + 0.093104 T^2 - 6.2e-6 T^3
+  const whole = 876600 * 3600 * t; // whole turns' part, split off before the small terms
+  const secs = 67310.54841 + 8640184.812866 * t + (0.093104 - 6.2e-6 * t) * t * t;
+  const turns = (whole % 86400) / 86400 + secs / 86400;
+  let rad = (turns - Math.floor(turns)) * 2 * Math.PI;
+  if (rad < 0) rad += 2 * Math.PI;
+  return rad;
+}

@@ -111,6 +111,10 @@ class PassSearch {
   private readonly aosEl: Float64Array;
   private readonly bestEl: Float64Array;
   private readonly bestK: Int32Array;
+  /** The target has a further condition of sight (lunar limb, site mask, occultation). */
+  private readonly sight: boolean;
+  private readonly gNow: Float64Array;
+  private readonly elNow: Float64Array;
 
   constructor(
     private readonly target: Target,
@@ -121,6 +125,7 @@ class PassSearch {
     opts: SearchOptions,
   ) {
     this.nSites = sites.length;
+    this.sight = typeof target.sightMarginDeg === 'function';
     this.startMs = span.startMs;
     this.endMs = span.endMs;
     this.edgeTolS = opts.edgeToleranceS;
@@ -139,6 +144,8 @@ class PassSearch {
     this.memoAz = new Float64Array(memoSize);
     this.memoEl = new Float64Array(memoSize);
     const n = this.nSites;
+    this.gNow = new Float64Array(n);
+    this.elNow = new Float64Array(n);
     this.gm1 = new Float64Array(n);
     this.gm2 = new Float64Array(n);
     this.elm1 = new Float64Array(n);
@@ -168,11 +175,13 @@ class PassSearch {
       this.lastEl = NO_STATE_G;
       return NO_STATE_G;
     }
-    const look = lookFrom(this.sites[this.curSite]!, this.refState, this.refLook);
+    const site = this.sites[this.curSite]!;
+    const look = lookFrom(site, this.refState, this.refLook);
     this.memoAz[m] = look.azimuthDeg;
     this.memoEl[m] = look.elevationDeg;
     this.lastEl = look.elevationDeg;
-    return look.elevationDeg - maskElevationDeg(this.masks[this.curSite]!, look.azimuthDeg);
+    const g = look.elevationDeg - maskElevationDeg(this.masks[this.curSite]!, look.azimuthDeg);
+    return this.sight ? Math.min(g, this.target.sightMarginDeg!(site.ecefKm)) : g;
   }
 
   /** Azimuth/elevation at tMs for the current site: from the memo, else one evaluation. */
@@ -231,15 +240,22 @@ class PassSearch {
         last = k;
         trackEnded = true;
       }
+      // every site's g from this one state first: a refinement below moves the target's state
       for (let i = 0; i < n; i++) {
         const look = lookFrom(this.sites[i]!, this.scanState, this.scanLook);
-        const g = look.elevationDeg - maskElevationDeg(this.masks[i]!, look.azimuthDeg);
+        let g = look.elevationDeg - maskElevationDeg(this.masks[i]!, look.azimuthDeg);
+        if (this.sight) g = Math.min(g, this.target.sightMarginDeg!(this.sites[i]!.ecefKm));
+        this.gNow[i] = g;
+        this.elNow[i] = look.elevationDeg;
+      }
+      for (let i = 0; i < n; i++) {
+        const g = this.gNow[i]!;
         this.curSite = i;
         this.sample(i, k, t, g);
         this.gm2[i] = this.gm1[i]!;
         this.elm2[i] = this.elm1[i]!;
         this.gm1[i] = g;
-        this.elm1[i] = look.elevationDeg;
+        this.elm1[i] = this.elNow[i]!;
       }
       if (trackEnded) break;
     }

@@ -8,7 +8,8 @@
  * range rate = (d . v_target) / |d| (the site is fixed in ECEF, so the relative velocity
  * is the target's ECEF velocity). Source: D. A. Vallado, "Fundamentals of Astrodynamics
  * and Applications", 4th ed. (2013), section 4.4 (SEZ/topocentric horizon frame), with
- * ENU instead of SEZ axes. Geometric (no refraction, no light time).
+ * ENU instead of SEZ axes. Geometric (no refraction); light time, where modelled, is in
+ * the target's state (light-time.ts).
  * Valid range: any target not at the site (range > 0). Units: km, km/s, degrees.
  */
 import type { Look, Site } from './types.js';

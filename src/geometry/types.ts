@@ -20,6 +20,16 @@ export interface Target {
   readonly failedAtMs: number | undefined;
   /** Why the track ended, for the one warning. */
   readonly failureReason: string | undefined;
+  /**
+   * Further condition of sight from a station (ECEF km) at the state last returned by
+   * stateEcefAt, deg (> 0: visible): the Moon's limb and a lunar site's own mask,
+   * occultation by the Moon. Absent: the station's mask alone decides.
+   */
+  sightMarginDeg?(stationEcefKm: ArrayLike<number>): number;
+  /** Where the target has states (an ephemeris file's usable span); absent: everywhere. */
+  readonly coverage?: { startMs: number; endMs: number };
+  /** One-way light time of the state last returned, s (light-time corrected targets only). */
+  readonly lastLightTimeS?: number;
 }
 
 /** A ground site prepared for fast topocentric transforms. */

@@ -16,6 +16,8 @@
  *             rate = eta(entry) Rs, 0 when none closes                  modcod/acm.ts
  *   Shannon   = B log2(1 + (C/N0)/B), B = Rs (1 + rolloff)             modcod/shannon.ts
  *   Doppler   = -f v_r / c                                             doppler.ts
+ *   Sun, Moon = T_body (the caller's, body-noise.ts) x 10^(-A/10), added to Tsky at every
+ *               sample (the caller passes 0 where no body is near the beam)
  * Below LinkSettings.minDataElevationDeg the rate is 0 (the budget is still computed).
  * The atmosphere is looked up at max(elevation, table.minElevationDeg): below the table
  * the atmosphere of its lowest elevation is used (such samples carry no data anyway).
@@ -36,6 +38,7 @@ import {
   pointingLossDb,
 } from './antenna.js';
 import { dopplerShiftHz } from './doppler.js';
+import { MOON_BRIGHTNESS_K, quietSunBrightnessK } from './body-brightness.js';
 import { freeSpaceLossDb, fluxDensityDbwM2 } from './free-space.js';
 import { carrierToNoiseDensityDbHz } from './link-equation.js';
 import { bestModcod, lowestThresholdModcod } from './modcod/acm.js';
@@ -104,6 +107,7 @@ export function prepareLink(
 
   // --- receive antenna gain and beamwidth
   const rx = station.receiver;
+  if (!rx) throw new Error(`prepareLink: station ${station.id} has no receiver (callers check radioHeardAt first)`);
   let rxGainDbi: number;
   let rxBeamwidthDeg = NaN;
   let antennaNoiseTempK = 0;
@@ -225,6 +229,8 @@ export function prepareLink(
     rxGainDbi,
     rxBeamwidthDeg,
     rxPolarization: station.polarization,
+    sunBrightnessK: quietSunBrightnessK(f),
+    moonBrightnessK: MOON_BRIGHTNESS_K,
     antennaNoiseTempK,
     feedLossDb,
     feedPhysicalTempK,
@@ -269,7 +275,7 @@ export function prepareLink(
  * nothing. With `full` false the reference columns (Shannon capacity, Doppler) are left
  * as they were: the volume integration needs neither.
  */
-export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full = true): void {
+export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full = true, bodyTempK = 0): void {
   const f = p.frequencyHz;
   out.freeSpaceLossDb = freeSpaceLossDb(look.rangeKm, f);
 
@@ -285,6 +291,9 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
   out.scintillationDb = a.scintillationDb;
   out.atmosphereDb = a.totalDb;
   out.skyNoiseTempK = a.skyNoiseTempK;
+  // the Sun and the Moon in the beam, seen through the same atmosphere
+  const bodyK = bodyTempK > 0 ? bodyTempK * 10 ** (-a.totalDb / 10) : 0;
+  out.bodyNoiseTempK = bodyK;
 
   // Transmit side.
   let offDeg = 0;
@@ -303,12 +312,12 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
   // Receive side.
   out.rxGainDbi = p.rxGainDbi;
   if (p.receiverKind === 'chain') {
-    const tsysK = p.skyNoiseWeight * a.skyNoiseTempK + p.fixedNoiseTempK;
+    const tsysK = p.skyNoiseWeight * (a.skyNoiseTempK + bodyK) + p.fixedNoiseTempK;
     out.systemNoiseTempK = tsysK;
     out.gOverTDbK = gOverTDbK(p.rxGainDbi, p.feedLossDb, tsysK);
   } else {
-    out.systemNoiseTempK = p.referenceSystemNoiseTempK + (a.skyNoiseTempK - p.referenceSkyNoiseTempK);
-    out.gOverTDbK = gOverTAtSkyDbK(p.statedGOverTDbK, p.referenceSystemNoiseTempK, p.referenceSkyNoiseTempK, a.skyNoiseTempK);
+    out.systemNoiseTempK = p.referenceSystemNoiseTempK + (a.skyNoiseTempK + bodyK - p.referenceSkyNoiseTempK);
+    out.gOverTDbK = gOverTAtSkyDbK(p.statedGOverTDbK, p.referenceSystemNoiseTempK, p.referenceSkyNoiseTempK, a.skyNoiseTempK + bodyK);
   }
   if (p.gOverTOverrideDbK === p.gOverTOverrideDbK) out.gOverTDbK = p.gOverTOverrideDbK; // given (not NaN)
   out.pointingLossDb = p.pointingLossDb;
@@ -352,13 +361,15 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
  * How much the sample's Es/N0 (and Eb/N0, and the margin) changes when its atmosphere is
  * replaced by an absorptive attenuation absorptionDb without scintillation (the expected
  * volume's levels): the loss difference plus the G/T change of the sky noise that
- * attenuation emits (ITU-R P.618-14 §3), through the same receiver model as evaluateLink.
+ * attenuation emits (ITU-R P.618-14 §3), through the same receiver model as evaluateLink;
+ * the Sun's and the Moon's noise in the beam is seen through the new attenuation too.
  * A G/T given by the user stays. Allocates nothing.
  */
 export function esN0ShiftDb(p: PreparedLink, s: LinkSample, absorptionDb: number): number {
   let gt = s.gOverTDbK;
   if (p.gOverTOverrideDbK !== p.gOverTOverrideDbK) {
-    const tskyK = skyNoiseTemperatureK(absorptionDb);
+    const bodyK = s.bodyNoiseTempK > 0 ? s.bodyNoiseTempK * 10 ** ((s.atmosphereDb - absorptionDb) / 10) : 0;
+    const tskyK = skyNoiseTemperatureK(absorptionDb) + bodyK;
     gt =
       p.receiverKind === 'chain'
         ? gOverTDbK(p.rxGainDbi, p.feedLossDb, p.skyNoiseWeight * tskyK + p.fixedNoiseTempK)
@@ -367,10 +378,13 @@ export function esN0ShiftDb(p: PreparedLink, s: LinkSample, absorptionDb: number
   return s.atmosphereDb - absorptionDb + (gt - s.gOverTDbK);
 }
 
-/** The budget at one look, term by term, for a handbook-style printout (allocates). */
-export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
+/**
+ * The budget at one look, term by term, for a handbook-style printout (allocates).
+ * bodyTempK: the Sun's and the Moon's antenna temperature in the beam (body-noise.ts), K.
+ */
+export function budgetTerms(p: PreparedLink, look: Look, bodyTempK = 0): BudgetTerm[] {
   const s = newLinkSample();
-  evaluateLink(p, look, s);
+  evaluateLink(p, look, s, true, bodyTempK);
   const t: BudgetTerm[] = [];
   const add = (name: string, value: number, unit: string, source: string): void => {
     t.push({ name, value, unit, source });
@@ -381,7 +395,7 @@ export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
   add('Transmit power', p.txPowerDbw, 'dBW', 'radio');
   add('Transmit losses', -p.txLossDb, 'dB', 'radio');
   if (p.txAntennaKind === 'pattern' && p.txNadirPointing) {
-    add('Off-boresight angle (nadir pointing)', s.offBoresightDeg, 'deg', 'law of cosines, antenna.ts');
+    add('Off-boresight angle (nadir pointing)', s.offBoresightDeg, 'deg', 'spherical-Earth geometry (law of cosines)');
   }
   add(
     'Transmit antenna gain',
@@ -391,23 +405,24 @@ export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
   );
   add('EIRP', s.eirpDbw, 'dBW', 'P_tx - L_tx + G_tx');
   add('Free-space loss', -s.freeSpaceLossDb, 'dB', 'ITU-R P.525 sec. 2.2');
-  add('Gaseous absorption', -s.gasDb, 'dB', 'src/link/atmosphere (ITU-R P.676)');
-  add('Rain attenuation', -s.rainDb, 'dB', 'src/link/atmosphere (ITU-R P.618 sec. 2.2)');
-  add('Cloud attenuation', -s.cloudDb, 'dB', 'src/link/atmosphere (ITU-R P.840)');
-  add('Scintillation', -s.scintillationDb, 'dB', 'src/link/atmosphere (ITU-R P.618 sec. 2.4)');
+  add('Gaseous absorption', -s.gasDb, 'dB', 'ITU-R P.676-13 Annex 2 (surface conditions)');
+  add('Rain attenuation', -s.rainDb, 'dB', 'ITU-R P.618-14 sec. 2.2.1.1');
+  add('Cloud attenuation', -s.cloudDb, 'dB', 'ITU-R P.840-9');
+  add('Scintillation', -s.scintillationDb, 'dB', 'ITU-R P.618-14 sec. 2.4.1');
   add('Atmosphere total', -s.atmosphereDb, 'dB', 'ITU-R P.618 sec. 2.5 combination');
   add('Pointing loss', -s.pointingLossDb, 'dB', `12 (${p.pointingErrorDeg} / ${p.rxBeamwidthDeg.toPrecision(3)} deg)^2, common practice`);
-  add('Polarisation mismatch', -s.polarizationLossDb, 'dB', `${p.txPolarization} -> ${p.rxPolarization}, polarization.ts`);
+  add('Polarisation mismatch', -s.polarizationLossDb, 'dB', `${p.txPolarization} -> ${p.rxPolarization}, ideal antennas; 25 dB cross-polar isolation (common practice)`);
   if (p.extraLossDb !== 0) add('Other losses', -p.extraLossDb, 'dB', 'given by the user');
   add('Power flux density at the station (free space)', fluxDensityDbwM2(s.eirpDbw, look.rangeKm), 'dBW/m2', 'EIRP / (4 pi d^2)');
   add('Receive antenna gain', s.rxGainDbi, 'dBi', p.receiverKind === 'chain' ? 'eta (pi D / lambda)^2 or stated' : p.referenceNoiseNote);
   add('Sky noise temperature', s.skyNoiseTempK, 'K', 'ITU-R P.618 sec. 3');
+  if (bodyTempK > 0) add('Moon in the beam (disc centred, through the atmosphere)', s.bodyNoiseTempK, 'K', `${p.moonBrightnessK} K lunar disc (Krotikov & Troitskii 1964) in a Gaussian main lobe`);
   if (p.receiverKind === 'chain') {
     add('Feed loss', -p.feedLossDb, 'dB', 'station');
     add('System noise temperature (LNA input)', s.systemNoiseTempK, 'K', '(Tsky + Tant)/Lf + Tf (1 - 1/Lf) + Trx');
   } else {
     add('Stated G/T', p.statedGOverTDbK, 'dB/K', `station, clear sky at ${p.statedAtElevationDeg} deg`);
-    add('System noise temperature', s.systemNoiseTempK, 'K', 'Tsys_ref + (Tsky - Tsky_ref), noise.ts');
+    add('System noise temperature', s.systemNoiseTempK, 'K', 'Tsys_ref + (Tsky - Tsky_ref), sky noise by ITU-R P.618-14 sec. 3');
   }
   add(
     'Received carrier power',
@@ -415,7 +430,7 @@ export function budgetTerms(p: PreparedLink, look: Look): BudgetTerm[] {
     'dBW',
     'EIRP - losses + G_rx (Friis)',
   );
-  add('G/T', s.gOverTDbK, 'dB/K', Number.isNaN(p.gOverTOverrideDbK) ? 'noise.ts' : 'given by the user (replaces the computed G/T)');
+  add('G/T', s.gOverTDbK, 'dB/K', Number.isNaN(p.gOverTOverrideDbK) ? 'G_rx - 10 log10 Tsys' : 'given by the user (replaces the computed G/T)');
   add("Boltzmann's constant", BOLTZMANN_EXACT_DBW_PER_K_HZ, 'dBW/(K.Hz)', 'BIPM SI 9th ed. (2019), exact k');
   add('C/N0', s.cN0DbHz, 'dB-Hz', 'EIRP - losses + G/T - 10 log10 k');
   if (p.codingKind === 'fixed') {

@@ -34,6 +34,9 @@ export interface PreparedLink {
   /** 3 dB beamwidth of the station antenna, deg (NaN when unknown and not needed). */
   readonly rxBeamwidthDeg: number;
   readonly rxPolarization: Polarization;
+  /** Disc brightness of the quiet Sun and of the Moon at the frequency, K (body-brightness.ts). */
+  readonly sunBrightnessK: number;
+  readonly moonBrightnessK: number;
   /** Chain receiver: noise pieces, referred to the LNA input. */
   readonly antennaNoiseTempK: number;
   readonly feedLossDb: number;
@@ -111,6 +114,8 @@ export interface LinkSample {
   atmosphereDb: number;
   /** Sky brightness temperature through the atmosphere, K. */
   skyNoiseTempK: number;
+  /** Antenna temperature of the Sun and the Moon in the beam, through the atmosphere, K (body-noise.ts). */
+  bodyNoiseTempK: number;
   pointingLossDb: number;
   polarizationLossDb: number;
   /** Off-boresight angle used for the transmit pattern, deg (0 for constant/tracking). */
@@ -180,6 +185,7 @@ export function newLinkSample(): LinkSample {
     scintillationDb: 0,
     atmosphereDb: 0,
     skyNoiseTempK: 0,
+    bodyNoiseTempK: 0,
     pointingLossDb: 0,
     polarizationLossDb: 0,
     offBoresightDeg: 0,

@@ -22,8 +22,13 @@
  * pieces. The worst margin is the lowest closure margin (above the most robust
  * entry's threshold plus the required margin, LinkSample.closureMarginDb) over the
  * samples of the whole contact (AOS..LOS, both edges sampled).
+ * Every sample carries the noise the Sun and the Moon add in the station's beam
+ * (bodyTempK: geometry/sky-bodies.ts and link/body-noise.ts), so Sun outages and a
+ * lunar target's Moon noise are in the volumes.
  */
 import { lookFrom, newLook } from '../geometry/topocentric.js';
+import { newBodyAngles, type BodyAngles, type SkyBodies } from '../geometry/sky-bodies.js';
+import { beamBodiesTempK } from '../link/body-noise.js';
 import { StateInterpolator } from '../geometry/interpolate.js';
 import type { Look, Site } from '../geometry/types.js';
 import { buildAtmosphereTable, buildExceedanceLevelsTable, rainModelled, type AtmosphereStationInput } from '../link/atmosphere/index.js';
@@ -65,6 +70,7 @@ export const linkKey = (spacecraftId: string, stationId: string) => `${spacecraf
 /** Receive dish diameter for scintillation aperture averaging: given, or from the gain. */
 function effectiveDiameterM(station: Station, freqHz: number): { diameterM: number; efficiency: number } {
   const rx = station.receiver;
+  if (!rx) throw new Error(`station ${station.id} has no receiver (callers check radioHeardAt first)`);
   const efficiency = rx.apertureEfficiency ?? 0.6;
   if (rx.dishDiameterM !== undefined) return { diameterM: rx.dishDiameterM, efficiency };
   const gainDbi = rx.gainDbi ?? 40;
@@ -165,7 +171,7 @@ export function prepareRadioAtStationUnnamed(
   const opts: Parameters<typeof prepareLink>[4] = {
     stationGeocentricRadiusKm: Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]),
   };
-  if (station.receiver.kind === 'gt') {
+  if (station.receiver?.kind === 'gt') {
     const { rainRate001MmH: _r, rainHeightKm: _h, cloudLiquidWaterKgM2: _c, ...clear } = input;
     opts.clearSkyAtmosphere = cached(clear, Math.min(minElevationDeg, station.receiver.atElevationDeg));
   }
@@ -243,6 +249,7 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry, opts: Prepa
   const levels = opts.expectedVolume === false ? undefined : cache.levels;
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
+    if (!station.receiver) return; // windows only (a notice of the scenario says so)
     for (const sc of scenario.spacecraft) {
       sc.radios.forEach((radio, r) => {
         if (!radioHeardAt(station, radio)) {
@@ -608,6 +615,8 @@ export function integrateContacts(
   const state = new Float64Array(6);
   const look = newLook();
   const sample = newLinkSample();
+  const sky = geometry.sky;
+  const angles = newBodyAngles();
   const stats: LinkRunStats = { linkSamples: 0, propagations: 0 };
   const acqMs = settings.acquisitionTimeS * 1000;
 
@@ -668,7 +677,8 @@ export function integrateContacts(
     const evalAt = (acc: Accumulator, tMs: number) => {
       if (!interp.stateAt(tMs, state)) return;
       lookFrom(acc.site, state, look);
-      evaluateLink(acc.link, look, sample, false);
+      sky.at(tMs);
+      evaluateLink(acc.link, look, sample, false, bodyTempK(acc.link, sky, acc.site, state, angles));
       stats.linkSamples++;
       addSample(acc, tMs, look, sample);
     };
@@ -706,10 +716,11 @@ export function integrateContacts(
         continue;
       }
       if (!interp.stateAt(tMs, state)) continue;
+      sky.at(tMs);
       for (const acc of active) {
         if (tMs <= acc.contact.aosMs || tMs >= acc.contact.losMs) continue;
         lookFrom(acc.site, state, look);
-        evaluateLink(acc.link, look, sample, false);
+        evaluateLink(acc.link, look, sample, false, bodyTempK(acc.link, sky, acc.site, state, angles));
         stats.linkSamples++;
         addSample(acc, tMs, look, sample);
       }
@@ -841,4 +852,15 @@ function finish(acc: Accumulator): void {
     if (e.pieces !== undefined) link.expectedRatePieces = e.pieces;
   }
   acc.contact.link = link;
+}
+
+/**
+ * Antenna temperature the Sun and the Moon add at one sample (link/body-noise.ts), K:
+ * sky must have been moved to the sample's time. 0 when the beamwidth is unknown.
+ */
+export function bodyTempK(link: PreparedLink, sky: SkyBodies, site: Site, stateEcef: Float64Array, angles: BodyAngles): number {
+  const hpbw = link.rxBeamwidthDeg;
+  if (!(hpbw > 0)) return 0;
+  sky.angles(site, stateEcef, angles);
+  return beamBodiesTempK(link.sunBrightnessK, link.moonBrightnessK, hpbw, angles);
 }

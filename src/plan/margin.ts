@@ -25,7 +25,9 @@
  *   for a LEO at 5 deg. Valid for r >= R.
  * - The budget there: prepareRadioAtStation (atmosphere at the scenario's availability,
  *   table from 0 deg) + evaluateLink at (elevation, worst range, range rate 0). Its
- *   closure margin is net of the radio's required margin (src/link/budget.ts): the row
+ *   closure margin is net of the radio's required margin (src/link/budget.ts). For a
+ *   lunar target the Moon's noise is added as if its disc were centred in the beam (the
+ *   worst case, worstMoonTempK); the Sun is left out (its outages are listed by plan). The row
  *   PASSES when it is >= 0. For adaptive coding it is the margin above the most robust
  *   entry's threshold (not above the entry in use, which is about 0 by construction);
  *   it is >= 0 exactly when some MODCOD closes with the required margin.
@@ -48,6 +50,8 @@ import { lookFrom, newLook } from '../geometry/topocentric.js';
 import { slantRangeKm } from '../geometry/slant.js';
 import type { Look, Site, Target } from '../geometry/types.js';
 import { evaluateLink } from '../link/budget.js';
+import { discAntennaTempK } from '../link/body-noise.js';
+import { MOON_MEAN_RADIUS_KM } from '../geometry/targets/moon-ephemeris.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { LinkSettings, Scenario, Span, Station } from '../scenario/types.js';
 import { prepareGeometry } from './contacts.js';
@@ -177,20 +181,30 @@ export function marginAtElevation(
   elevationDeg: number,
   look: Look,
   out: LinkSample,
+  lunar = false,
 ): number {
   look.azimuthDeg = 0;
   look.elevationDeg = elevationDeg;
   look.rangeKm = slantRangeAtElevationKm(stationRadiusKm, targetRadiusKm, elevationDeg);
   look.rangeRateKmS = 0;
-  evaluateLink(link, look, out);
+  evaluateLink(link, look, out, true, lunar ? worstMoonTempK(link, look.rangeKm) : 0);
   return out.closureMarginDb;
 }
 
+/**
+ * A lunar target's Moon noise in the worst case: the Moon's disc centred in the beam
+ * (link/body-noise.ts), at the distance of the check, K.
+ */
+export function worstMoonTempK(link: PreparedLink, rangeKm: number): number {
+  const radiusDeg = (Math.asin(Math.min(1, MOON_MEAN_RADIUS_KM / rangeKm)) * 180) / Math.PI;
+  return discAntennaTempK(link.moonBrightnessK, radiusDeg, 0, link.rxBeamwidthDeg);
+}
+
 /** Usable data mask (see the head comment): deg, or null when the link never closes. */
-export function usableMaskDeg(link: PreparedLink, stationRadiusKm: number, targetRadiusKm: number, toleranceDeg = USABLE_TOLERANCE_DEG): number | null {
+export function usableMaskDeg(link: PreparedLink, stationRadiusKm: number, targetRadiusKm: number, toleranceDeg = USABLE_TOLERANCE_DEG, lunar = false): number | null {
   const look = newLook();
   const s = newLinkSample();
-  const closes = (e: number) => marginAtElevation(link, stationRadiusKm, targetRadiusKm, e, look, s) >= 0;
+  const closes = (e: number) => marginAtElevation(link, stationRadiusKm, targetRadiusKm, e, look, s, lunar) >= 0;
   if (!closes(90)) return null;
   let hi = 90;
   for (let k = 1; ; k++) {
@@ -307,7 +321,8 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
         elevationDeg = Math.max(maskCheckDeg, lowestElevationDeg(target, site, plan.span, look));
       }
       const link = prepareRadioAtStation(radio, station, site, scenario.link, USABLE_FLOOR_DEG, tables);
-      const maskMarginDb = marginAtElevation(link, stationRadiusKm, far.radiusKm, elevationDeg, look, sample);
+      const lunar = sc.orbit.kind === 'moon' || sc.orbit.kind === 'lunarSite' || sc.orbit.kind === 'lunarOrbit';
+      const maskMarginDb = marginAtElevation(link, stationRadiusKm, far.radiusKm, elevationDeg, look, sample, lunar);
       let worstSeen: number | null = null;
       for (const c of contacts) {
         if (c.link && (worstSeen === null || c.link.worstMarginDb < worstSeen)) worstSeen = c.link.worstMarginDb;
@@ -323,7 +338,7 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
         maskMarginDb,
         maskModcod: modcodName(link, sample),
         maskRateBps: sample.rateBps,
-        usableMaskDeg: usableMaskDeg(link, stationRadiusKm, far.radiusKm, opts.toleranceDeg),
+        usableMaskDeg: usableMaskDeg(link, stationRadiusKm, far.radiusKm, opts.toleranceDeg, lunar),
         worstSeenMarginDb: worstSeen,
         contacts: contacts.length,
         pass: contacts.length > 0 && maskMarginDb >= 0,

@@ -14,7 +14,7 @@
  */
 import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
-import { runPlan, planResult, type PlanOptions } from './run.js';
+import { runPlan, planResult, sortOutages, type PlanOptions } from './run.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import type { PlanResult, WarningOrigin } from './types.js';
 import { reviveError, type SerializedError } from '../errors.js';
@@ -153,7 +153,9 @@ export function mergePlans(scenario: Scenario, span: Span, parts: PlanResult[]):
     stats.propagations += p.stats.propagations;
     stats.linkSamples += p.stats.linkSamples;
   }
-  return planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, warnings, stats, origins);
+  const merged = planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, warnings, stats, origins);
+  if (parts.some((p) => p.sunOutages)) merged.sunOutages = sortOutages(scenario, parts.flatMap((p) => p.sunOutages ?? []));
+  return merged;
 }
 
 /**

@@ -100,7 +100,7 @@ export function preflight(scenario: Scenario, span?: Span, opts: PreflightOption
   if (opts.links === false) return { problems, warnings };
   scenario.stations.forEach((station, k) => {
     const site = sites[k];
-    if (!site) return;
+    if (!site || !station.receiver) return; // windows only: no link to check
     scenario.spacecraft.forEach((sc, i) => {
       sc.radios.forEach((radio, j) => {
         const radioPath = `spacecraft[${i}].radios[${j}]`;

@@ -107,8 +107,8 @@ export interface RecorderTrack {
 export interface RecorderResult {
   stepS: number;
   seriesStepS: number;
-  /** 'scheduled' when only the schedule's taken windows drain, else 'all contacts'. */
-  contactsUsed: 'scheduled' | 'all contacts';
+  /** 'scheduled' when only the schedule's taken windows drain, 'booked tracks' for a booking, else 'all contacts'. */
+  contactsUsed: 'scheduled' | 'all contacts' | 'booked tracks';
   tracks: RecorderTrack[];
 }
 
@@ -174,7 +174,7 @@ interface Drain {
 export function simulateRecorder(
   spacecraftId: string,
   recorder: RecorderSpec,
-  contacts: readonly { contactIndex: number; contact: Contact }[],
+  contacts: readonly { contactIndex: number; contact: Contact; profile?: DrainSegment[] }[],
   span: Span,
   opts: RecorderOptions = {},
 ): RecorderTrack {
@@ -188,9 +188,9 @@ export function simulateRecorder(
 
   const drains: Drain[] = contacts
     .filter((c) => c.contact.link && c.contact.link.volumeBits > 0)
-    .map(({ contactIndex, contact }) => {
+    .map(({ contactIndex, contact, profile: given }) => {
       const link = contact.link!;
-      const profile = drainProfile(link);
+      const profile = given ?? drainProfile(link);
       return {
         contactIndex,
         contact,
@@ -349,13 +349,18 @@ export function simulateRecorders(
   spacecraft: readonly Spacecraft[],
   schedule?: ScheduleResult,
   opts: RecorderOptions = {},
+  /** Drain profile per contact index, in place of the contact's own (booked track periods). */
+  profiles?: ReadonlyMap<number, DrainSegment[]>,
 ): RecorderResult {
   const allowed = schedule ? new Set(schedule.taken.map((t) => t.contactIndex)) : undefined;
   const tracks: RecorderTrack[] = [];
   for (const sc of spacecraft) {
     if (!sc.recorder) continue;
     const contacts = plan.contacts
-      .map((contact, contactIndex) => ({ contact, contactIndex }))
+      .map((contact, contactIndex) => {
+        const profile = profiles?.get(contactIndex);
+        return profile ? { contact, contactIndex, profile } : { contact, contactIndex };
+      })
       .filter((c) => c.contact.spacecraftId === sc.id && (!allowed || allowed.has(c.contactIndex)));
     tracks.push(simulateRecorder(sc.id, sc.recorder, contacts, plan.span, opts));
   }
@@ -363,7 +368,7 @@ export function simulateRecorders(
   return {
     stepS,
     seriesStepS: Math.max(1, Math.round((opts.seriesStepS ?? DEFAULT_SERIES_STEP_S) / stepS)) * stepS,
-    contactsUsed: schedule ? 'scheduled' : 'all contacts',
+    contactsUsed: profiles ? 'booked tracks' : schedule ? 'scheduled' : 'all contacts',
     tracks,
   };
 }

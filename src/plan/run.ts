@@ -6,7 +6,8 @@ import { DEFAULT_SEARCH, type SearchOptions } from '../geometry/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import { prepareGeometry, findContacts } from './contacts.js';
 import { prepareLinks, type LinkTableCache, integrateContacts, integrateOtherRadios, DEFAULT_LINK_STEP_S } from './link.js';
-import type { PlanResult } from './types.js';
+import type { PlanResult, SunOutage } from './types.js';
+import { findSunOutages } from './sun-outages.js';
 
 export interface PlanOptions {
   linkStepS?: number;
@@ -30,6 +31,7 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, 
   const origins = [...found.warningOrigins];
   let linkSamples = 0;
   let propagations = found.propagations;
+  let sunOutages: SunOutage[] | undefined;
   const linkStepS = opts.linkStepS ?? DEFAULT_LINK_STEP_S;
   if (!opts.geometryOnly) {
     const setup = prepareLinks(scenario, geometry, { ...(opts.expectedVolume === false ? { expectedVolume: false } : {}), ...(cache ? { cache } : {}) });
@@ -39,9 +41,12 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, 
     const other = integrateOtherRadios(found.contacts, geometry, setup, scenario.link, linkStepS);
     linkSamples = stats.linkSamples + other.linkSamples;
     propagations += stats.propagations + other.propagations;
+    sunOutages = sortOutages(scenario, findSunOutages(found.contacts, geometry, setup));
     opts.onProgress?.(2, total, 'done');
   }
-  return planResult(scenario, span, linkStepS, found.contacts, warnings, { propagations, linkSamples }, origins);
+  const result = planResult(scenario, span, linkStepS, found.contacts, warnings, { propagations, linkSamples }, origins);
+  if (sunOutages) result.sunOutages = sunOutages;
+  return result;
 }
 
 /** A PlanResult from its parts (shared with sizing, which re-runs only the link stage). */
@@ -65,4 +70,11 @@ export function planResult(
     ...(warningOrigins && warningOrigins.length === warnings.length ? { warningOrigins } : {}),
     stats,
   };
+}
+
+/** Sun outages in plan order: station (file order), start, spacecraft (file order). */
+export function sortOutages(scenario: Scenario, list: SunOutage[]): SunOutage[] {
+  const st = new Map(scenario.stations.map((s, i) => [s.id, i]));
+  const sc = new Map(scenario.spacecraft.map((s, i) => [s.id, i]));
+  return list.sort((a, b) => (st.get(a.stationId) ?? 0) - (st.get(b.stationId) ?? 0) || a.startMs - b.startMs || (sc.get(a.spacecraftId) ?? 0) - (sc.get(b.spacecraftId) ?? 0));
 }

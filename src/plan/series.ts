@@ -15,7 +15,8 @@ import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type PreparedLink } from '../link/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import { makeTarget } from './contacts.js';
-import { lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
+import { bodyTempK, lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
+import { newBodyAngles, SkyBodies } from '../geometry/sky-bodies.js';
 import type { Contact, PlanResult } from './types.js';
 
 export interface ContactSeries {
@@ -28,8 +29,14 @@ export interface ContactSeries {
   stepS: number;
   tMs: Float64Array;
   elevationDeg: Float64Array;
+  azimuthDeg: Float64Array;
   rateBps: Float64Array;
   marginDb: Float64Array;
+  /** The MODCOD (adaptive) or code (fixed) in use at each sample, an index into `modcodNames`; -1: none closes. */
+  modcodIndex: Int16Array;
+  modcodNames: readonly string[];
+  /** The receive antenna's 3 dB beamwidth, deg (NaN when unknown). */
+  rxBeamwidthDeg: number;
 }
 
 /** Default number of intervals a charted contact is cut into. */
@@ -51,12 +58,16 @@ export function sampleContact(
   link: PreparedLink,
   acquisitionTimeS: number,
   stepS: number,
+  sky: SkyBodies,
 ): ContactSeries {
+  const angles = newBodyAngles();
   if (!(stepS > 0)) throw new Error(`sampleContact: stepS must be > 0 (got ${stepS})`);
   const stepMs = stepS * 1000;
   const n = Math.max(0, Math.ceil((contact.losMs - contact.aosMs) / stepMs - 1e-9)) + 1;
   const tMs = new Float64Array(n);
   const elevationDeg = new Float64Array(n);
+  const azimuthDeg = new Float64Array(n);
+  const modcodIndex = new Int16Array(n);
   const rateBps = new Float64Array(n);
   const marginDb = new Float64Array(n);
   const dataStartMs = Math.min(contact.aosMs + acquisitionTimeS * 1000, contact.losMs);
@@ -68,9 +79,12 @@ export function sampleContact(
     const t = k === n - 1 ? contact.losMs : contact.aosMs + k * stepMs;
     if (!target.stateEcefAt(t, state)) continue;
     lookFrom(site, state, look);
-    evaluateLink(link, look, sample);
+    sky.at(t);
+    evaluateLink(link, look, sample, true, bodyTempK(link, sky, site, state, angles));
     tMs[m] = t;
     elevationDeg[m] = look.elevationDeg;
+    azimuthDeg[m] = look.azimuthDeg;
+    modcodIndex[m] = link.codingKind === 'fixed' ? (sample.rateBps > 0 ? 0 : -1) : sample.modcodIndex;
     rateBps[m] = t >= dataStartMs ? sample.rateBps : 0;
     marginDb[m] = sample.closureMarginDb;
     m++;
@@ -85,9 +99,40 @@ export function sampleContact(
     stepS,
     tMs: tMs.slice(0, m),
     elevationDeg: elevationDeg.slice(0, m),
+    azimuthDeg: azimuthDeg.slice(0, m),
     rateBps: rateBps.slice(0, m),
     marginDb: marginDb.slice(0, m),
+    modcodIndex: modcodIndex.slice(0, m),
+    modcodNames: link.codingKind === 'fixed' ? [link.codingName] : link.modcodTable.map((e) => e.name),
+    rxBeamwidthDeg: link.rxBeamwidthDeg,
   };
+}
+
+/**
+ * The passes that matter, each once: the highest volume, the worst closure margin and the
+ * longest (ties: the first in plan order), with why each was chosen; among the passes
+ * wholly inside the span when there are any.
+ */
+export function passesThatMatter(plan: PlanResult): { contact: Contact; why: string[] }[] {
+  // passes wholly inside the span (a geostationary "pass" as long as the span is not one); all when none is
+  const whole = plan.contacts.filter((c) => !c.aosClipped && !c.losClipped);
+  const pool = whole.length > 0 ? whole : plan.contacts;
+  const linked = pool.filter((c) => c.link !== undefined);
+  const pick = (pool: readonly Contact[], better: (a: Contact, b: Contact) => boolean): Contact | undefined =>
+    pool.reduce<Contact | undefined>((b, c) => (b === undefined || better(c, b) ? c : b), undefined);
+  const chosen: [Contact | undefined, string][] = [
+    [pick(linked, (a, b) => a.link!.volumeBits > b.link!.volumeBits), 'best: highest volume'],
+    [pick(linked, (a, b) => a.link!.worstMarginDb < b.link!.worstMarginDb), 'worst closure margin'],
+    [pick(pool, (a, b) => a.durationS > b.durationS), 'longest'],
+  ];
+  const out: { contact: Contact; why: string[] }[] = [];
+  for (const [c, why] of chosen) {
+    if (!c) continue;
+    const same = out.find((o) => o.contact === c);
+    if (same) same.why.push(why);
+    else out.push({ contact: c, why: [why] });
+  }
+  return out;
 }
 
 /** The highest-volume contact of each spacecraft (plan order; ties: the earlier AOS). */
@@ -119,6 +164,7 @@ export function seriesForContacts(
 ): ContactSeries[] {
   const out: ContactSeries[] = [];
   const targets = new Map<string, Target>();
+  const sky = new SkyBodies(span);
   for (const c of contacts) {
     const sc = scenario.spacecraft.find((s) => s.id === c.spacecraftId);
     const station = scenario.stations.find((s) => s.id === c.stationId);
@@ -132,7 +178,7 @@ export function seriesForContacts(
     const site = makeSite(station.id, station.latitudeDeg, station.longitudeDeg, station.heightKm);
     const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station));
     const stepS = seriesStepS(c.durationS, maxPoints);
-    out.push(sampleContact(c, target, site, link, scenario.link.acquisitionTimeS, stepS));
+    out.push(sampleContact(c, target, site, link, scenario.link.acquisitionTimeS, stepS, sky));
   }
   return out;
 }

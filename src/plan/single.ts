@@ -8,11 +8,13 @@
  * follows from the same triangle. Handbook overrides replace a modelled term
  * by a given value.
  */
+import { geocentricStates } from '../geometry/targets/ephemeris.js';
 import { ScenarioError, UsageError } from '../errors.js';
 import { makeSite } from '../geometry/earth.js';
 import { slantRangeKm, elevationForRangeDeg, semiMajorAxisKm } from '../geometry/slant.js';
 import type { Look } from '../geometry/types.js';
 import { budgetTerms } from '../link/budget.js';
+import { worstMoonTempK } from './margin.js';
 import type { AtmosphereResult, AtmosphereTable } from '../link/atmosphere/types.js';
 import type { BudgetTerm, PreparedLink } from '../link/types.js';
 import { skyNoiseTemperatureK } from '../link/atmosphere/sky-noise.js';
@@ -44,8 +46,13 @@ export interface SingleBudget {
 /** Typical geocentric distance of the spacecraft, km. */
 export function typicalRadiusKm(sc: Spacecraft): number {
   const o = sc.orbit;
-  if (o.kind === 'moon') return MOON_MEAN_DISTANCE_KM;
+  if (o.kind === 'moon' || o.kind === 'lunarSite' || o.kind === 'lunarOrbit') return MOON_MEAN_DISTANCE_KM;
   if (o.kind === 'fixedSky') return o.rangeKm;
+  if (o.kind === 'ephemeris') {
+    const seg = o.ephemeris.segments[0]!;
+    const s = geocentricStates(seg);
+    return Math.hypot(s[0]!, s[1]!, s[2]!);
+  }
   const set = o.sets[0];
   const n = set?.omm?.meanMotionRevPerDay ?? (set?.tle ? Number(set.tle.line2.slice(52, 63)) : Number.NaN);
   return semiMajorAxisKm(n);
@@ -133,7 +140,7 @@ export function preparePoint(scenario: Scenario, req: PointRequest, command: str
     // The Moon's or a fixed sky direction's elevation does not follow from a range: a
     // made-up triangle would give an elevation (3 deg for the Moon) nobody asked for.
     throw new UsageError(
-      `${command}: ${sc.id} is ${sc.orbit.kind === 'moon' ? 'at the Moon' : 'at a fixed sky direction'}; its elevation does not follow from --range-km: give --elevation DEG too`,
+      `${command}: ${sc.id} is ${sc.orbit.kind === 'fixedSky' ? 'at a fixed sky direction' : sc.orbit.kind === 'ephemeris' ? 'on an ephemeris' : 'at the Moon'}; its elevation does not follow from --range-km: give --elevation DEG too`,
     );
   }
   const site = makeSite(station.id, station.latitudeDeg, station.longitudeDeg, station.heightKm);
@@ -153,7 +160,9 @@ export function singleBudget(scenario: Scenario, req: SingleBudgetRequest): Sing
   const point = preparePoint(scenario, req, 'budget');
   const { sc, radio, look, orbitRadiusKm } = point;
   const link = withOverrides(point.link, req);
-  const terms = overriddenTerms(budgetTerms(link, look), req);
+  // a lunar target's budget carries the Moon's noise, its disc centred in the beam (the worst case)
+  const lunar = sc.orbit.kind === 'moon' || sc.orbit.kind === 'lunarSite' || sc.orbit.kind === 'lunarOrbit';
+  const terms = overriddenTerms(budgetTerms(link, look, lunar ? worstMoonTempK(link, look.rangeKm) : 0), req);
   const station = scenario.stations.find((s) => s.id === req.stationId)!; // preparePoint checked it
   const climate = stationClimate(station, linkExceedancePercent(scenario.link));
   return { spacecraftId: sc.id, stationId: req.stationId, radioId: radio.id, look, orbitRadiusKm, terms, climate };

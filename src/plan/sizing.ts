@@ -46,7 +46,7 @@ import type { Look } from '../geometry/types.js';
 import type { AtmosphereTable } from '../link/atmosphere/types.js';
 import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type PreparedLink } from '../link/types.js';
-import type { Radio, Scenario, Span, Station } from '../scenario/types.js';
+import type { Radio, Receiver, Scenario, Span, Station } from '../scenario/types.js';
 import { findContacts, prepareGeometry, type Geometry } from './contacts.js';
 import { integrateContacts, linkKey, lowestMaskDeg, prepareLinks, prepareRadioAtStation, radioHeardAt, type LinkSetup } from './link.js';
 import { maxDepth, scheduleContacts } from './schedule.js';
@@ -212,9 +212,10 @@ function symbolRateOf(radio: Radio): number {
 
 function withDish(st: Station, diameterM: number): Station {
   const rx = st.receiver;
+  if (!rx) throw new UsageError(`--solve dish: station ${st.id} has no antenna and receiver in the network file`);
   if (rx.kind !== 'chain') throw new UsageError(`--solve dish: station ${st.id} states a G/T; sizing its dish needs a receive chain (noise temperature or figure)`);
   const { gainDbi: _g, ...rest } = rx;
-  const dish = (r: Station['receiver']): Station['receiver'] => {
+  const dish = (r: Receiver): Receiver => {
     if (r.kind !== 'chain') return r;
     const { gainDbi: _h, ...other } = r;
     return { ...other, dishDiameterM: diameterM };
@@ -261,7 +262,7 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
     searchRule = `bracket in 10 dB steps within ${POWER_LIMITS_DBW.min}..${POWER_LIMITS_DBW.max} dBW, bisection to ${POWER_TOLERANCE_DB} dB`;
   } else if (req.solve === 'dish') {
     unit = 'm';
-    const targets = req.stationId === undefined ? scenario.stations.filter((s) => s.receiver.kind === 'chain') : scenario.stations.filter((s) => s.id === req.stationId);
+    const targets = req.stationId === undefined ? scenario.stations.filter((s) => s.receiver?.kind === 'chain') : scenario.stations.filter((s) => s.id === req.stationId);
     if (targets.length === 0) {
       throw new UsageError(
         req.stationId === undefined
@@ -271,7 +272,7 @@ export function sizeForWeek(ctx: SizingContext, req: WeekSizingRequest): WeekSiz
     }
     stationIds = targets.map((s) => s.id);
     for (const t of targets) withDish(t, 1); // throws for a G/T station
-    const dishes = targets.map((t) => t.receiver.dishDiameterM).filter((d): d is number => d !== undefined);
+    const dishes = targets.map((t) => t.receiver?.dishDiameterM).filter((d): d is number => d !== undefined);
     current = dishes.length === targets.length && dishes.every((d) => d === dishes[0]) ? dishes[0]! : null;
     make = (d) => ({ stations: new Map(targets.map((t) => [t.id, withDish(t, d)])) });
     headroom = (cur, ans) => 20 * Math.log10(cur / ans);

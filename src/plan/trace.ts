@@ -30,7 +30,9 @@ import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import { findContacts, prepareGeometry, type Geometry } from './contacts.js';
-import { prepareRadioAtStation, radioHeardAt } from './link.js';
+import { bodyTempK, prepareRadioAtStation, radioHeardAt } from './link.js';
+import { newBodyAngles } from '../geometry/sky-bodies.js';
+import { LunarSiteTarget } from '../geometry/targets/lunar.js';
 import type { Contact } from './types.js';
 
 export const DEFAULT_TRACE_STEP_S = 10;
@@ -77,6 +79,13 @@ export interface TraceRow {
   link: LinkSample;
   /** MODCOD (adaptive) or code name (fixed) carrying data, '' when the rate is 0. */
   modcod: string;
+  /** The Sun's centre from boresight at the station, and the Sun-Earth-probe angle, deg. */
+  sunOffsetDeg: number;
+  sunEarthProbeDeg: number;
+  /** True for a lunar surface site: where the station lies in the site's sky, deg. */
+  lunarSite: boolean;
+  lunarEarthElevationDeg: number;
+  lunarEarthAzimuthDeg: number;
 }
 
 interface PairPlan {
@@ -207,7 +216,14 @@ export function* traceRows(t: PreparedTrace): Generator<TraceRow, void, undefine
     hasLink: false,
     link: newLinkSample(),
     modcod: '',
+    sunOffsetDeg: 0,
+    sunEarthProbeDeg: 0,
+    lunarSite: false,
+    lunarEarthElevationDeg: 0,
+    lunarEarthAzimuthDeg: 0,
   };
+  const sky = t.geometry.sky;
+  const angles = newBodyAngles();
   const { startMs } = t.span;
   const { stepMs, steps } = t;
   const count = t.plans.length;
@@ -221,6 +237,8 @@ export function* traceRows(t: PreparedTrace): Generator<TraceRow, void, undefine
     const cursors = new Int32Array(plan.pairs.length);
     let mergedCursor = 0;
     row.spacecraftId = plan.spacecraftId;
+    const lunar = target instanceof LunarSiteTarget ? target : undefined;
+    row.lunarSite = lunar !== undefined;
     row.hasRadio = Number.isFinite(plan.frequencyHz);
     let nextReport = TRACE_PROGRESS_EVERY_STEPS;
     for (let k = 0; k < steps; k++) {
@@ -242,6 +260,10 @@ export function* traceRows(t: PreparedTrace): Generator<TraceRow, void, undefine
       }
       row.tMs = tMs;
       row.ok = target.stateEcefAt(tMs, state);
+      if (row.ok) {
+        sky.at(tMs);
+        row.sunEarthProbeDeg = sky.sunEarthProbeDeg(state);
+      }
       for (let pi = 0; pi < plan.pairs.length; pi++) {
         const pair = plan.pairs[pi]!;
         const contacts = pair.contacts;
@@ -257,8 +279,14 @@ export function* traceRows(t: PreparedTrace): Generator<TraceRow, void, undefine
         if (row.ok) {
           lookFrom(pair.site, state, row.look);
           row.dopplerHz = row.hasRadio ? dopplerShiftHz(plan.frequencyHz, row.look.rangeRateKmS) : 0;
+          row.sunOffsetDeg = sky.angles(pair.site, state, angles).sunOffsetDeg;
+          if (lunar !== undefined) {
+            const sk = lunar.skyOf(pair.site.ecefKm);
+            row.lunarEarthElevationDeg = sk.elevationDeg;
+            row.lunarEarthAzimuthDeg = sk.azimuthDeg;
+          }
           if (pair.link !== undefined && row.look.elevationDeg >= TRACE_LINK_MIN_ELEVATION_DEG) {
-            evaluateLink(pair.link, row.look, row.link);
+            evaluateLink(pair.link, row.look, row.link, true, bodyTempK(pair.link, sky, pair.site, state, angles));
             row.hasLink = true;
             row.modcod = modcodOf(pair.link, row.link);
           }

@@ -50,10 +50,30 @@ export const VOLUME_BIN_MS = 15 * 60 * 1000;
 
 export interface Contact extends Pass {
   durationS: number;
+  /** When the craft sent what the station receives at AOS and LOS (received time less the light time), epoch ms. */
+  aosTransmitMs?: number;
+  losTransmitMs?: number;
+  /** One-way light time at TCA, s. */
+  lightTimeS?: number;
   /** The data downlink's link (radios[0]); absent without a radio or a feed for it. */
   link?: ContactLink;
   /** The spacecraft's other radios, each with its own volume (radios[1..] heard by a feed). */
   otherLinks?: ContactLink[];
+}
+
+/** A period of a contact with the Sun near the station's boresight (plan/sun-outages.ts). */
+export interface SunOutage {
+  stationId: string;
+  spacecraftId: string;
+  startMs: number;
+  endMs: number;
+  /** Closest approach of the Sun's centre to boresight, deg, and when. */
+  minOffsetDeg: number;
+  minAtMs: number;
+  /** The station's half-power beamwidth at the data radio's frequency, deg. */
+  beamwidthDeg: number;
+  /** Antenna temperature the quiet Sun adds at the closest approach (before the atmosphere), K. */
+  peakSunNoiseK: number;
 }
 
 export interface PlanResult {
@@ -72,6 +92,8 @@ export interface PlanResult {
    */
   warningOrigins?: WarningOrigin[];
   stats: { propagations: number; linkSamples: number };
+  /** Sun outages, ordered by station (file order) then start; absent for a geometry-only plan. */
+  sunOutages?: SunOutage[];
 }
 
 /**

@@ -1,10 +1,12 @@
 /**
- * Renders a plan: the terminal table per station, and the JSON, JSON Lines and CSV forms
- * written under out/, each in pieces (report/write.ts writes them as they are made).
+ * Renders a plan: the terminal table per station, and the JSON and CSV forms
+ * written under out/. Pure: returns strings; writing is write.ts's job.
  * Rounding is fixed (times to 0.1 s, angles to 0.01 deg, margins to 0.01 dB,
  * volumes to the bit) so the same inputs give byte-identical files.
  */
-import type { PlanResult, Contact } from '../plan/types.js';
+import { stringify } from 'csv-stringify/sync';
+import type { PlanResult, Contact, SunOutage } from '../plan/types.js';
+import { SUN_OUTAGE_BEAMWIDTHS } from '../geometry/sun-outage.js';
 import { isoUtc, isoInZone, formatDuration } from '../time/format.js';
 import { renderTable, fixed, formatBits, type Column } from './table.js';
 import { uniqueVolumes } from '../plan/unique-volume.js';
@@ -14,6 +16,26 @@ const round = (v: number, d: number) => (Number.isFinite(v) ? Number(v.toFixed(d
 
 function timeText(tMs: number, zone: string | undefined): string {
   return zone ? isoInZone(tMs, zone) : isoUtc(tMs, 1);
+}
+
+/** The time alone when it falls on the same date as `refMs` (as printed), else the full time. */
+function sameDayText(tMs: number, refMs: number, zone: string | undefined): string {
+  const t = timeText(tMs, zone);
+  const ref = timeText(refMs, zone);
+  return t.slice(0, 10) === ref.slice(0, 10) ? t.slice(11) : t;
+}
+
+/** The MODCOD (or code) with the most time in a contact, "-" when none closes. */
+function mostTimeIn(timeInModcodS: Record<string, number>): string {
+  let best = '-';
+  let bestS = 0;
+  for (const [name, t] of Object.entries(timeInModcodS)) {
+    if (t > bestS || (t === bestS && t > 0 && name < best)) {
+      best = name;
+      bestS = t;
+    }
+  }
+  return best;
 }
 
 /** The terminal table in pieces, one station's table at a time (each piece ends its line). */
@@ -32,33 +54,39 @@ export function* planTablePieces(plan: PlanResult, zone?: string): Generator<str
       yield* lines('  no contacts in the window');
       continue;
     }
-    const cols: Column[] = [
-      { header: 'spacecraft' },
-      { header: zone ? `AOS (${zone})` : 'AOS (UTC)' },
-      { header: 'TCA' },
-      { header: 'LOS' },
-      { header: 'duration', align: 'right' },
-      { header: 'max el deg', align: 'right' },
-      { header: 'az AOS', align: 'right' },
-      { header: 'az LOS', align: 'right' },
-    ];
-    if (hasLink) cols.push({ header: 'volume', align: 'right' });
-    if (hasExpected) cols.push({ header: 'expected', align: 'right' });
-    if (hasLink) cols.push({ header: 'worst margin dB', align: 'right' });
+    // what the link gives first, then the geometry (TCA and azimuths: contacts.csv, plan.json)
+    const cols: Column[] = [{ header: 'spacecraft' }];
+    if (hasLink) {
+      cols.push(
+        { header: zone ? `data start (${zone})` : 'data start (UTC)' },
+        { header: 'data end' },
+        { header: 'volume', align: 'right' },
+        ...(hasExpected ? [{ header: 'expected', align: 'right' } as const] : []),
+        { header: 'closure margin dB', align: 'right' },
+        { header: 'most time in' },
+      );
+    }
+    cols.push({ header: hasLink ? 'AOS' : zone ? `AOS (${zone})` : 'AOS (UTC)' }, { header: 'LOS' }, { header: 'duration', align: 'right' }, { header: 'max el deg', align: 'right' });
     const body = rows.map((c) => {
-      const r = [
-        c.spacecraftId,
-        timeText(c.aosMs, zone) + (c.aosClipped ? '<' : ''),
-        timeText(c.tcaMs, zone),
-        timeText(c.losMs, zone) + (c.losClipped ? '>' : ''),
+      const l = c.link;
+      const ref = l ? l.dataStartMs : c.aosMs;
+      const r = [c.spacecraftId];
+      if (hasLink) {
+        r.push(
+          l ? timeText(l.dataStartMs, zone) : '-',
+          l ? sameDayText(l.dataEndMs, ref, zone) : '-',
+          l ? formatBits(l.volumeBits) : '-',
+          ...(hasExpected ? [l?.expectedVolumeBits !== undefined ? formatBits(l.expectedVolumeBits) : '-'] : []),
+          l ? fixed(l.worstMarginDb, 1) : '-',
+          l ? mostTimeIn(l.timeInModcodS) : '-',
+        );
+      }
+      r.push(
+        (hasLink && l ? sameDayText(c.aosMs, ref, zone) : timeText(c.aosMs, zone)) + (c.aosClipped ? '<' : ''),
+        (hasLink && l ? sameDayText(c.losMs, ref, zone) : sameDayText(c.losMs, c.aosMs, zone)) + (c.losClipped ? '>' : ''),
         formatDuration(c.durationS),
         fixed(c.maxElevationDeg, 1),
-        fixed(c.aosAzimuthDeg, 0),
-        fixed(c.losAzimuthDeg, 0),
-      ];
-      if (hasLink) r.push(c.link ? formatBits(c.link.volumeBits) : '-');
-      if (hasExpected) r.push(c.link?.expectedVolumeBits !== undefined ? formatBits(c.link.expectedVolumeBits) : '-');
-      if (hasLink) r.push(c.link ? fixed(c.link.worstMarginDb, 1) : '-');
+      );
       return r;
     });
     yield* lines(indent(renderTable(cols, body)));
@@ -83,6 +111,34 @@ export function* planTablePieces(plan: PlanResult, zone?: string): Generator<str
     );
   }
   if (clipped) yield* lines('"<" / ">": window cut by the start / end of the span.');
+  const outages = plan.sunOutages ?? [];
+  yield* lines('');
+  yield* lines(`Sun outages (the Sun's limb within ${SUN_OUTAGE_BEAMWIDTHS} half-power beamwidth of boresight; their noise is in the volumes): ${outages.length === 0 ? 'none' : outages.length}`);
+  if (outages.length > 0) {
+    const cols: Column[] = [
+      { header: 'station' },
+      { header: 'spacecraft' },
+      { header: zone ? `start (${zone})` : 'start (UTC)' },
+      { header: 'end' },
+      { header: 'duration', align: 'right' },
+      { header: 'closest deg', align: 'right' },
+      { header: 'at' },
+      { header: 'beam deg', align: 'right' },
+      { header: 'Sun noise K', align: 'right' },
+    ];
+    const body = outages.map((o) => [
+      o.stationId,
+      o.spacecraftId,
+      timeText(o.startMs, zone),
+      timeText(o.endMs, zone),
+      formatDuration((o.endMs - o.startMs) / 1000),
+      fixed(o.minOffsetDeg, 3),
+      timeText(o.minAtMs, zone),
+      fixed(o.beamwidthDeg, 3),
+      fixed(o.peakSunNoiseK, 0),
+    ]);
+    yield* lines(indent(renderTable(cols, body)));
+  }
 }
 
 const lines = (...text: string[]): string[] => text.map((l) => `${l}\n`);
@@ -90,8 +146,9 @@ const lines = (...text: string[]): string[] => text.map((l) => `${l}\n`);
 function summaryLine(rows: Contact[], hasLink: boolean, hasExpected: boolean): string {
   const totalS = rows.reduce((s, c) => s + c.durationS, 0);
   let line = `${rows.length} window${rows.length === 1 ? '' : 's'}, contact time ${formatDuration(totalS)}`;
-  if (hasLink) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
-  if (hasExpected) line += `, expected ${formatBits(rows.reduce((s, c) => s + (c.link?.expectedVolumeBits ?? c.link?.volumeBits ?? 0), 0))}`;
+  const linked = hasLink && rows.some((c) => c.link !== undefined);
+  if (linked) line += `, volume ${formatBits(rows.reduce((s, c) => s + (c.link?.volumeBits ?? 0), 0))}`;
+  if (linked && hasExpected) line += `, expected ${formatBits(rows.reduce((s, c) => s + (c.link?.expectedVolumeBits ?? c.link?.volumeBits ?? 0), 0))}`;
   return line;
 }
 
@@ -104,66 +161,83 @@ function indent(text: string): string {
 
 type Cell = string | number | boolean | null;
 
-/**
- * One column of the contact outputs (contacts.csv, plan.json, contacts.jsonl): its key
- * and its value with fixed rounding; a column a contact lacks (a link's, without a link) is
- * left out of its record.
- * This list is the one place that says which columns there are and in which order.
- */
-export interface ContactColumn {
-  key: string;
-  /** Whether the contact has this column (every contact, one with a link, ...). */
-  present: (c: Contact) => boolean;
-  value: (c: Contact) => Cell;
+/** Seconds per MODCOD (or code), largest first, as "name=seconds;..." for one CSV cell. */
+function modcodCell(timeInModcodS: Record<string, number>): string {
+  return Object.entries(timeInModcodS)
+    .filter(([, t]) => t > 0)
+    .sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1))
+    .map(([name, t]) => `${name}=${t.toFixed(1)}`)
+    .join(';');
 }
 
-type Link = NonNullable<Contact['link']>;
-const always = (): boolean => true;
-const base = (key: string, value: (c: Contact) => Cell): ContactColumn => ({ key, present: always, value });
-const linked = (key: string, value: (l: Link) => Cell, when: (l: Link) => boolean = always): ContactColumn => ({
-  key,
-  present: (c) => c.link !== undefined && when(c.link),
-  value: (c) => value(c.link!),
-});
+/** Light-time targets (ephemeris, lunar site and orbiter) carry the one-way light time and transmit times. */
+const hasLightTime = (c: Contact): boolean => c.lightTimeS !== undefined && Number.isFinite(c.lightTimeS);
 
-export const CONTACT_COLUMNS: readonly ContactColumn[] = [
-  base('station', (c) => c.stationId),
-  base('spacecraft', (c) => c.spacecraftId),
-  base('aos_utc', (c) => isoUtc(c.aosMs, 3)),
-  base('tca_utc', (c) => isoUtc(c.tcaMs, 3)),
-  base('los_utc', (c) => isoUtc(c.losMs, 3)),
-  base('duration_s', (c) => round(c.durationS, 1)),
-  base('max_elevation_deg', (c) => round(c.maxElevationDeg, 2)),
-  base('aos_azimuth_deg', (c) => round(c.aosAzimuthDeg, 2)),
-  base('los_azimuth_deg', (c) => round(c.losAzimuthDeg, 2)),
-  base('aos_clipped', (c) => c.aosClipped),
-  base('los_clipped', (c) => c.losClipped),
-  linked('radio', (l) => l.radioId),
-  linked('volume_bits', (l) => Math.round(l.volumeBits)),
-  linked(
-    'expected_volume_bits',
-    (l) => l.expectedVolumeBits ?? null,
-    (l) => l.expectedVolumeBits !== undefined,
-  ),
-  linked('closed_s', (l) => round(l.closedS, 1)),
-  linked('worst_margin_db', (l) => round(l.worstMarginDb, 2)),
-  linked('worst_margin_utc', (l) => isoUtc(l.worstMarginAtMs, 3)),
-  linked('worst_margin_elevation_deg', (l) => round(l.worstMarginElevationDeg, 2)),
-  linked('peak_rate_bps', (l) => Math.round(l.peakRateBps)),
+/**
+ * The one definition of a contact record's columns, in order (contacts.csv's header and
+ * plan.json's key order): who, then what the link gives (data start and end, volume,
+ * closure margin, time per MODCOD), then the geometry as a trailing group. Link columns are
+ * empty (CSV) or absent (JSON) for a contact without a link.
+ */
+export const CONTACT_COLUMNS: readonly {
+  key: string;
+  /** Needs the contact's link. */
+  link?: true;
+  /** Present only when this holds (JSON: the key left out; CSV: the column when any contact has it). */
+  when?: (c: Contact) => boolean;
+  /** In plan.json only. */
+  jsonOnly?: true;
+  value: (c: Contact) => Cell;
+}[] = [
+  { key: 'station', value: (c) => c.stationId },
+  { key: 'spacecraft', value: (c) => c.spacecraftId },
+  { key: 'radio', link: true, value: (c) => c.link!.radioId },
+  { key: 'data_start_utc', link: true, value: (c) => isoUtc(c.link!.dataStartMs, 3) },
+  { key: 'data_end_utc', link: true, value: (c) => isoUtc(c.link!.dataEndMs, 3) },
+  { key: 'volume_bits', link: true, value: (c) => Math.round(c.link!.volumeBits) },
+  { key: 'expected_volume_bits', link: true, when: (c) => c.link?.expectedVolumeBits !== undefined, value: (c) => c.link!.expectedVolumeBits! },
+  {
+    key: 'expected_volume_bound_bits',
+    link: true,
+    jsonOnly: true,
+    when: (c) => c.link?.expectedVolumeBoundBits !== undefined,
+    value: (c) => Math.ceil(c.link!.expectedVolumeBoundBits!),
+  },
+  { key: 'closure_margin_db', link: true, value: (c) => round(c.link!.worstMarginDb, 2) },
+  { key: 'time_in_modcod_s', link: true, value: (c) => modcodCell(c.link!.timeInModcodS) },
+  { key: 'closed_s', link: true, value: (c) => round(c.link!.closedS, 1) },
+  { key: 'peak_rate_bps', link: true, value: (c) => Math.round(c.link!.peakRateBps) },
+  { key: 'closure_margin_at_utc', link: true, value: (c) => isoUtc(c.link!.worstMarginAtMs, 3) },
+  { key: 'closure_margin_at_elevation_deg', link: true, value: (c) => round(c.link!.worstMarginElevationDeg, 2) },
+  { key: 'aos_utc', value: (c) => isoUtc(c.aosMs, 3) },
+  { key: 'tca_utc', value: (c) => isoUtc(c.tcaMs, 3) },
+  { key: 'los_utc', value: (c) => isoUtc(c.losMs, 3) },
+  { key: 'duration_s', value: (c) => round(c.durationS, 1) },
+  { key: 'max_elevation_deg', value: (c) => round(c.maxElevationDeg, 2) },
+  { key: 'aos_azimuth_deg', value: (c) => round(c.aosAzimuthDeg, 2) },
+  { key: 'los_azimuth_deg', value: (c) => round(c.losAzimuthDeg, 2) },
+  { key: 'aos_clipped', value: (c) => c.aosClipped },
+  { key: 'los_clipped', value: (c) => c.losClipped },
+  { key: 'light_time_s', when: hasLightTime, value: (c) => round(c.lightTimeS!, 6) },
+  { key: 'aos_transmit_utc', when: hasLightTime, value: (c) => isoUtc(c.aosTransmitMs ?? Number.NaN, 3) },
+  { key: 'los_transmit_utc', when: hasLightTime, value: (c) => isoUtc(c.losTransmitMs ?? Number.NaN, 3) },
 ];
 
-/** One contact as a plain record with fixed rounding (JSON and CSV share it). */
-export function contactRecord(c: Contact): Record<string, Cell> {
+/** One contact as a plain record in CONTACT_COLUMNS order, fixed rounding (JSON and CSV share it). */
+export function contactRecord(c: Contact, forJson = false): Record<string, Cell> {
   const rec: Record<string, Cell> = {};
-  for (const col of CONTACT_COLUMNS) if (col.present(c)) rec[col.key] = col.value(c);
+  for (const col of CONTACT_COLUMNS) {
+    if ((col.link && !c.link) || (col.when && !col.when(c)) || (col.jsonOnly && !forJson)) continue;
+    rec[col.key] = col.value(c);
+  }
   return rec;
 }
 
 /** One contact as plan.json and contacts.jsonl hold it: its record, time per MODCOD and other radios. */
 export function contactJson(c: Contact): Record<string, unknown> {
   return {
-    ...contactRecord(c),
-    ...(c.link?.expectedVolumeBoundBits !== undefined ? { expected_volume_bound_bits: Math.ceil(c.link.expectedVolumeBoundBits) } : {}),
+    ...contactRecord(c, true),
+    // in JSON, the time per MODCOD as an object, in its column's place
     ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
     ...(c.otherLinks
       ? {
@@ -171,7 +245,7 @@ export function contactJson(c: Contact): Record<string, unknown> {
             radio: l.radioId,
             volume_bits: l.volumeBits,
             ...(l.expectedVolumeBits !== undefined ? { expected_volume_bits: l.expectedVolumeBits } : {}),
-            worst_margin_db: round(l.worstMarginDb, 2),
+            closure_margin_db: round(l.worstMarginDb, 2),
             peak_rate_bps: Math.round(l.peakRateBps),
           })),
         }
@@ -189,8 +263,9 @@ export function planJsonPieces(plan: PlanResult, extra: Record<string, unknown> 
     availability_percent: plan.availabilityPercent,
     link_step_s: plan.linkStepS,
     spacecraft: plan.spacecraft,
-    stations: plan.stations,
+    stations: plan.stations.map((st) => ({ id: st.id, name: st.name, time_zone: st.timeZone })),
     contacts: contactList(plan),
+    ...(plan.sunOutages ? { sun_outages: plan.sunOutages.map(sunOutageRecord) } : {}),
     ...extra,
     warnings: plan.warnings,
   };
@@ -216,43 +291,39 @@ function csvField(v: Cell | undefined): string {
   return /[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
 }
 
-const EMPTY_CSV = 'station,spacecraft,aos_utc,tca_utc,los_utc,duration_s,max_elevation_deg\n';
-
-/**
- * The CSV columns: every column some contact has, in first-seen order (the first contact's
- * columns, then any column a later contact adds, at the end), found over the few distinct
- * sets of columns the contacts have.
- */
-function csvColumns(contacts: readonly Contact[]): ContactColumn[] {
-  const seenSets = new Set<bigint>();
-  const columns: ContactColumn[] = [];
-  for (const c of contacts) {
-    let set = 0n;
-    for (let j = 0; j < CONTACT_COLUMNS.length; j++) if (CONTACT_COLUMNS[j]!.present(c)) set |= 1n << BigInt(j);
-    if (seenSets.has(set)) continue;
-    seenSets.add(set);
-    CONTACT_COLUMNS.forEach((col, j) => {
-      if (set & (1n << BigInt(j)) && !columns.includes(col)) columns.push(col);
-    });
-  }
-  return columns;
-}
-
-/** contacts.csv in pieces, row by row. */
+/** contacts.csv in pieces, row by row: the columns of CONTACT_COLUMNS some contact has, in its order. */
 export function* planCsvPieces(plan: PlanResult): Generator<string> {
-  if (plan.contacts.length === 0) {
-    yield EMPTY_CSV;
-    return;
-  }
-  const columns = csvColumns(plan.contacts);
+  const hasLink = plan.contacts.some((c) => c.link !== undefined);
+  const columns = CONTACT_COLUMNS.filter((col) => !col.jsonOnly && (hasLink || !col.link) && (!col.when || plan.contacts.some(col.when)));
   yield `${columns.map((col) => col.key).join(',')}\n`;
   for (const c of plan.contacts) {
     let row = '';
     for (let j = 0; j < columns.length; j++) {
       const col = columns[j]!;
       if (j > 0) row += ',';
-      if (col.present(c)) row += csvField(col.value(c));
+      if (!(col.link && !c.link) && !(col.when && !col.when(c))) row += csvField(col.value(c));
     }
     yield `${row}\n`;
   }
+}
+
+/** One Sun outage with fixed rounding (JSON and CSV share it). */
+export function sunOutageRecord(o: SunOutage): Record<string, string | number | null> {
+  return {
+    station: o.stationId,
+    spacecraft: o.spacecraftId,
+    start_utc: isoUtc(o.startMs, 3),
+    end_utc: isoUtc(o.endMs, 3),
+    duration_s: round((o.endMs - o.startMs) / 1000, 1),
+    closest_offset_deg: round(o.minOffsetDeg, 4),
+    closest_utc: isoUtc(o.minAtMs, 3),
+    beamwidth_deg: round(o.beamwidthDeg, 4),
+    peak_sun_noise_k: round(o.peakSunNoiseK, 1),
+  };
+}
+
+const SUN_OUTAGE_COLUMNS = ['station', 'spacecraft', 'start_utc', 'end_utc', 'duration_s', 'closest_offset_deg', 'closest_utc', 'beamwidth_deg', 'peak_sun_noise_k'];
+
+export function renderSunOutagesCsv(plan: PlanResult): string {
+  return stringify((plan.sunOutages ?? []).map(sunOutageRecord), { header: true, columns: SUN_OUTAGE_COLUMNS });
 }

@@ -8,12 +8,15 @@ import { stringify } from 'csv-stringify/sync';
 import type { RecorderResult } from '../plan/recorder.js';
 import { isoUtc } from '../time/format.js';
 import { formatBits, renderTable } from './table.js';
+import { GRID, INK, MUTED, RULE, SURFACE, WARN, hueFor } from './html/palette.js';
+
+const SVG_SANS = 'system-ui, "Segoe UI", "Noto Sans", "DejaVu Sans", sans-serif';
 
 const ageText = (s: number | null) => (s === null ? '-' : s >= 3600 ? `${(s / 3600).toFixed(1)} h` : `${(s / 60).toFixed(1)} min`);
 
 export function renderRecorderTable(r: RecorderResult): string {
   if (r.tracks.length === 0) return 'Onboard recorders: none in the scenario.\n';
-  const head = `Onboard recorders (drained by ${r.contactsUsed === 'scheduled' ? 'the scheduled windows' : 'every contact'}; ${r.stepS} s steps, FIFO, new data refused when full)`;
+  const head = `Onboard recorders (drained by ${r.contactsUsed === 'scheduled' ? 'the scheduled windows' : r.contactsUsed === 'booked tracks' ? 'the booked tracks' : 'every contact'}; ${r.stepS} s steps, FIFO, new data refused when full)`;
   const rows = r.tracks.map((t) => [
     t.spacecraftId,
     formatBits(t.capacityBits),
@@ -103,8 +106,6 @@ export function recorderJson(r: RecorderResult): Record<string, unknown> {
   };
 }
 
-const COLOURS = ['#1f77b4', '#d62728', '#2ca02c', '#9467bd', '#ff7f0e', '#8c564b', '#e377c2', '#17becf'];
-
 const xml = (s: string) => s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;');
 
 /** Fill of each recorder (percent of its capacity) over the span, one line per spacecraft. */
@@ -120,34 +121,34 @@ export function renderRecorderSvg(r: RecorderResult, title = 'Onboard recorder f
   const t0 = Math.min(...r.tracks.map((t) => t.series.tMs[0] ?? Infinity));
   const t1 = Math.max(...r.tracks.map((t) => t.series.tMs.at(-1) ?? -Infinity));
   const out: string[] = [];
-  out.push(`<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" font-family="sans-serif" font-size="12">`);
+  out.push(`<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}" font-family='${SVG_SANS}' font-size="11">`);
   out.push(`<title>${xml(title)}</title>`);
-  out.push(`<rect x="0" y="0" width="${W}" height="${H}" fill="white"/>`);
-  out.push(`<text x="${L}" y="18" font-size="14">${xml(title)} (% of capacity)</text>`);
+  // the report's own look: paper ground, horizontal rules only, an open frame, its spacecraft hues
+  out.push(`<rect x="0" y="0" width="${W}" height="${H}" fill="${SURFACE}"/>`);
+  out.push(`<text x="${L}" y="18" font-size="13" font-weight="600" fill="${INK}">${xml(title)} <tspan fill="${MUTED}" font-weight="400">% of capacity</tspan></text>`);
   if (!(t1 > t0)) {
-    out.push(`<text x="${L}" y="${T + 20}">no recorder in the scenario</text></svg>`);
+    out.push(`<text x="${L}" y="${T + 20}" fill="${MUTED}">no recorder in the scenario</text></svg>`);
     return out.join('\n') + '\n';
   }
   const x = (tMs: number) => (L + ((tMs - t0) / (t1 - t0)) * pw).toFixed(1);
   const y = (pct: number) => (T + ph - (pct / 100) * ph).toFixed(1);
   for (const pct of [0, 25, 50, 75, 100]) {
-    out.push(`<line x1="${L}" x2="${L + pw}" y1="${y(pct)}" y2="${y(pct)}" stroke="#ddd"/>`);
-    out.push(`<text x="${L - 6}" y="${y(pct)}" text-anchor="end" dominant-baseline="middle">${pct}</text>`);
+    out.push(`<line x1="${L}" x2="${L + pw}" y1="${y(pct)}" y2="${y(pct)}" stroke="${pct === 0 ? RULE : GRID}"/>`);
+    out.push(`<text x="${L - 6}" y="${y(pct)}" text-anchor="end" dominant-baseline="middle" fill="${MUTED}">${pct}</text>`);
   }
   for (let d = t0; d <= t1; d += 86_400_000) {
-    out.push(`<line x1="${x(d)}" x2="${x(d)}" y1="${T}" y2="${T + ph}" stroke="#eee"/>`);
-    out.push(`<text x="${x(d)}" y="${T + ph + 16}" text-anchor="middle">${isoUtc(d, 0).slice(5, 10)}</text>`);
+    out.push(`<line x1="${x(d)}" x2="${x(d)}" y1="${T + ph}" y2="${T + ph + 4}" stroke="${RULE}"/>`);
+    out.push(`<text x="${x(d)}" y="${T + ph + 16}" text-anchor="middle" fill="${MUTED}">${isoUtc(d, 0).slice(5, 10)}</text>`);
   }
-  out.push(`<rect x="${L}" y="${T}" width="${pw}" height="${ph}" fill="none" stroke="#888"/>`);
   r.tracks.forEach((t, i) => {
-    const colour = COLOURS[i % COLOURS.length]!;
+    const colour = hueFor(i);
     const pts = t.series.tMs.map((tm, k) => `${x(tm)},${y((100 * t.series.storedBits[k]!) / t.capacityBits)}`).join(' ');
-    out.push(`<polyline fill="none" stroke="${colour}" stroke-width="1.5" points="${pts}"/>`);
+    out.push(`<polyline fill="none" stroke="${colour}" stroke-width="1.6" stroke-linejoin="round" points="${pts}"/>`);
     const ly = T + 14 + i * 18;
-    out.push(`<line x1="${L + pw + 12}" x2="${L + pw + 32}" y1="${ly}" y2="${ly}" stroke="${colour}" stroke-width="3"/>`);
-    out.push(`<text x="${L + pw + 38}" y="${ly}" dominant-baseline="middle">${xml(t.spacecraftId)}${t.lostBits > 0 ? ' (overflows)' : ''}</text>`);
+    out.push(`<rect x="${L + pw + 14}" y="${ly - 5}" width="10" height="10" rx="2" fill="${colour}"/>`);
+    out.push(`<text x="${L + pw + 30}" y="${ly}" dominant-baseline="middle" fill="${t.lostBits > 0 ? WARN : INK}">${xml(t.spacecraftId)}${t.lostBits > 0 ? ' (overflows)' : ''}</text>`);
   });
-  out.push(`<text x="${L + pw / 2}" y="${H - 6}" text-anchor="middle">UTC date</text>`);
+  out.push(`<text x="${L + pw / 2}" y="${H - 6}" text-anchor="middle" fill="${MUTED}">UTC date</text>`);
   out.push('</svg>');
   return out.join('\n') + '\n';
 }

@@ -26,7 +26,9 @@ export function renderTable(columns: Column[], rows: string[][]): string {
 
 /** Fixed decimals, with "-" for a missing value. */
 export function fixed(value: number | undefined, decimals: number): string {
-  return value === undefined || !Number.isFinite(value) ? '-' : value.toFixed(decimals);
+  if (value === undefined || !Number.isFinite(value)) return '-';
+  const text = value.toFixed(decimals);
+  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text; // no "-0.00"
 }
 
 /** Bits in the unit a reader expects: Mbit, Gbit, Tbit. */

@@ -12,6 +12,10 @@
  * entry in use (adaptive coding: about 0 by construction).
  * Empty cells: geometry when the target had no state; link columns below the
  * horizon or without a radio (see src/plan/trace.ts). in_contact is 1 or 0.
+ * body_noise_k: the Sun's and the Moon's antenna temperature in the beam (through the
+ * atmosphere); sun_offset_deg: the Sun's centre from boresight as seen by the station;
+ * sun_earth_probe_deg: the Sun-Earth-probe angle; lunar_site_earth_*: where the station
+ * lies in a lunar surface site's sky (lunar sites only).
  */
 import { Readable } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
@@ -48,7 +52,19 @@ export const TRACE_COLUMNS = [
   'rate_bps',
   'shannon_rate_bps',
   'margin_in_use_db',
+  'body_noise_k',
+  'sun_offset_deg',
+  'sun_earth_probe_deg',
+  'lunar_site_earth_elevation_deg',
+  'lunar_site_earth_azimuth_deg',
 ] as const;
+
+const col = (name: (typeof TRACE_COLUMNS)[number]): number => TRACE_COLUMNS.indexOf(name);
+const BODY_NOISE_COL = col('body_noise_k');
+const SUN_OFFSET_COL = col('sun_offset_deg');
+const SEP_COL = col('sun_earth_probe_deg');
+const LUNAR_EL_COL = col('lunar_site_earth_elevation_deg');
+const LUNAR_AZ_COL = col('lunar_site_earth_azimuth_deg');
 
 /** Default size of the text batches handed to the sink, characters. */
 export const TRACE_CHUNK_CHARS = 64 * 1024;
@@ -85,7 +101,14 @@ export function traceRecord(r: TraceRow, timeDecimals: number, timeText: string 
   rec[5] = fx(l.rangeKm, 3);
   rec[6] = fx(l.rangeRateKmS, 5);
   if (r.hasRadio) rec[7] = fx(r.dopplerHz, 1);
+  rec[SUN_OFFSET_COL] = fx(r.sunOffsetDeg, 3);
+  rec[SEP_COL] = fx(r.sunEarthProbeDeg, 3);
+  if (r.lunarSite) {
+    rec[LUNAR_EL_COL] = fx(r.lunarEarthElevationDeg, 3);
+    rec[LUNAR_AZ_COL] = fx(r.lunarEarthAzimuthDeg, 3);
+  }
   if (!r.hasLink) return rec;
+  rec[BODY_NOISE_COL] = fx(r.link.bodyNoiseTempK, 3);
   const s = r.link;
   rec[9] = fx(s.freeSpaceLossDb, 3);
   rec[10] = fx(s.gasDb, 3);

@@ -11,7 +11,7 @@ import type { Problem } from '../errors.js';
 import { BAND_RANGES_MHZ, type FeedEntry, type StationEntry } from './schema.js';
 import type { Feed, Receiver, Station } from './types.js';
 
-function feedReceiver(f: FeedEntry, a: StationEntry['antenna'], stationReceiver: Receiver): Receiver {
+function feedReceiver(f: FeedEntry, a: NonNullable<StationEntry['antenna']>, stationReceiver: Receiver): Receiver {
   const own = f.gainDbi !== undefined || f.dishDiameterM !== undefined;
   const gain = own
     ? {
@@ -48,12 +48,13 @@ export function toFeeds(s: StationEntry, stationReceiver: Receiver, file: string
     if (seen.has(f.id)) problems.push({ file, path: `${path}.feeds[${i}].id`, message: `"${f.id}" is already used by another feed of the station; ids must be unique` });
     seen.add(f.id);
     const [fromMHz, toMHz] = f.band !== undefined ? BAND_RANGES_MHZ[f.band]! : [f.fromMHz!, f.toMHz!];
-    return { id: f.id, minHz: fromMHz * 1e6, maxHz: toMHz * 1e6, receiver: feedReceiver(f, s.antenna, stationReceiver) };
+    return { id: f.id, minHz: fromMHz * 1e6, maxHz: toMHz * 1e6, receiver: feedReceiver(f, s.antenna ?? {}, stationReceiver) };
   });
 }
 
 /** The feed of `station` covering freqHz (the first in file order), or undefined. */
 export function feedFor(station: Station, freqHz: number): Feed | undefined {
+  if (!station.receiver) return undefined;
   if (!station.feeds) return { id: 'main', minHz: 0, maxHz: Number.POSITIVE_INFINITY, receiver: station.receiver };
   return station.feeds.find((f) => freqHz >= f.minHz && freqHz <= f.maxHz);
 }

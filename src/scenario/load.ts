@@ -10,6 +10,8 @@
  * 90 deg elevation; climate values left out are read from the ITU-R maps for
  * the site later (src/link/climate/station.ts); availability 99.5 %.
  */
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import { DateTime } from 'luxon';
 import { ScenarioError, appendAll, type Problem } from '../errors.js';
 import { readText, parseStructured, resolveBeside, zodProblems } from './read.js';
@@ -26,10 +28,14 @@ import {
 } from './schema.js';
 import { parseTleText } from './tle.js';
 import { parseOmm } from './omm.js';
+import { parseOem } from './oem.js';
+import { MOON_MEAN_RADIUS_KM } from '../geometry/targets/moon-ephemeris.js';
 import { resolveCoding } from './coding.js';
-import { meanMotionAndEccentricity, perigeeProblem } from './elements-common.js';
+import { MIN_PERIGEE_HEIGHT_KM, meanMotionAndEccentricity, perigeeProblem } from './elements-common.js';
+import { sgp4MeanElements, sunSynchronousInclinationDeg } from '../geometry/mean-elements.js';
+import { WGS84_EQUATORIAL_RADIUS_KM } from '../geometry/earth.js';
 import { toFeeds } from './feeds.js';
-import type { ElementSet, OrbitSource, Radio, Scenario, Spacecraft, Station, Span, Mask, Receiver, TxAntenna } from './types.js';
+import type { ElementSet, InputFile, Notice, OrbitSource, Radio, Scenario, Spacecraft, Station, Span, Mask, Receiver, TxAntenna } from './types.js';
 
 export interface ScenarioFiles {
   spacecraftFile: string;
@@ -40,8 +46,10 @@ export const DEFAULT_AVAILABILITY_PERCENT = 99.5;
 
 export function loadScenario(files: ScenarioFiles): Scenario {
   const problems: Problem[] = [];
-  const fleet = loadFleet(files.spacecraftFile, problems);
-  const stations = loadNetwork(files.networkFile, problems);
+  const notices: Notice[] = [];
+  const referenced: string[] = [];
+  const fleet = loadFleet(files.spacecraftFile, problems, notices, referenced);
+  const stations = loadNetwork(files.networkFile, problems, notices);
   if (problems.length > 0 || fleet === undefined || stations === undefined) throw new ScenarioError(problems);
   return {
     spacecraft: fleet.spacecraft,
@@ -49,6 +57,8 @@ export function loadScenario(files: ScenarioFiles): Scenario {
     ...(fleet.span ? { span: fleet.span } : {}),
     link: fleet.link,
     sources: { spacecraftFile: files.spacecraftFile, networkFile: files.networkFile },
+    inputFiles: [files.spacecraftFile, files.networkFile, ...new Set(referenced)].map(fingerprint),
+    notices,
   };
 }
 
@@ -111,7 +121,7 @@ function checkValidPartsOfNetwork(data: unknown, file: string, problems: Problem
   });
 }
 
-function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraft' | 'span' | 'link'> | undefined {
+function loadFleet(file: string, problems: Problem[], notices: Notice[], referenced: string[]): Pick<Scenario, 'spacecraft' | 'span' | 'link'> | undefined {
   const read = readData(file, problems);
   if (read === undefined) return undefined;
   const { data, text } = read;
@@ -124,7 +134,7 @@ function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraf
   const doc = parsed.data;
   const before = problems.length;
   checkUnique(doc.spacecraft.map((s) => s.id), file, 'spacecraft', problems);
-  const spacecraft = doc.spacecraft.map((entry, i) => toSpacecraft(entry, file, `spacecraft[${i}]`, problems));
+  const spacecraft = doc.spacecraft.map((entry, i) => toSpacecraft(entry, file, `spacecraft[${i}]`, problems, notices, referenced));
   let span: Span | undefined;
   if (doc.window) {
     const from = parseInstant(doc.window.from);
@@ -144,6 +154,12 @@ function loadFleet(file: string, problems: Problem[]): Pick<Scenario, 'spacecraf
       minDataElevationDeg: doc.link?.minDataElevationDeg ?? -5,
     },
   };
+}
+
+/** An input file's SHA-256 and size, for the report's provenance (read again: the bytes as they are on disk). */
+function fingerprint(path: string): InputFile {
+  const bytes = readFileSync(path);
+  return { path, sha256: createHash('sha256').update(bytes).digest('hex'), bytes: bytes.length };
 }
 
 /**
@@ -175,8 +191,8 @@ function checkUnique(ids: string[], file: string, path: string, problems: Proble
   });
 }
 
-function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, problems: Problem[]): Spacecraft {
-  const orbit = toOrbit(entry.orbit, file, `${path}.orbit`, problems);
+function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, problems: Problem[], notices: Notice[] = [], referenced: string[] = []): Spacecraft {
+  const orbit = toOrbit(entry.orbit, file, `${path}.orbit`, problems, notices, referenced);
   const radios = (entry.radios ?? []).map((r, j) => toRadio(r, file, `${path}.radios[${j}]`, problems));
   checkUnique((entry.radios ?? []).map((r) => r.id), file, `${path}.radios`, problems);
   if (entry.dataRadio !== undefined) {
@@ -204,24 +220,76 @@ function toSpacecraft(entry: SpacecraftEntry, file: string, path: string, proble
   };
 }
 
-function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, problems: Problem[]): OrbitSource {
+function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, problems: Problem[], notices: Notice[] = [], referenced: string[] = []): OrbitSource {
   if (orbit.moon) return { kind: 'moon' };
   if (orbit.sky) return { kind: 'fixedSky', ...orbit.sky };
+  if (orbit.lunarSite) {
+    const ls = orbit.lunarSite;
+    return {
+      kind: 'lunarSite',
+      site: {
+        latitudeDeg: ls.latitudeDeg,
+        longitudeDeg: ls.longitudeDeg,
+        heightKm: ls.heightM / 1000,
+        mask: toMask(ls.maskDeg ?? 0, ls.horizon, file, `${path}.lunarSite`, problems),
+      },
+    };
+  }
+  if (orbit.lunarOrbit) {
+    const lo = orbit.lunarOrbit;
+    const epochMs = parseInstant(lo.epoch);
+    if (epochMs === undefined) {
+      problems.push({ file, path: `${path}.lunarOrbit.epoch`, message: `${JSON.stringify(lo.epoch)} is not an ISO 8601 time from ${INSTANT_RANGE_TEXT}` });
+    }
+    const periKm = lo.semiMajorAxisKm * (1 - lo.eccentricity) - MOON_MEAN_RADIUS_KM;
+    if (periKm < 10) {
+      problems.push({ file, path: `${path}.lunarOrbit`, message: `pericentre ${periKm.toFixed(1)} km above the mean lunar radius; valid: >= 10 km` });
+    }
+    const { epoch: _e, ...rest } = lo;
+    return { kind: 'lunarOrbit', elements: { ...rest, epochMs: epochMs ?? 0, grazingMarginKm: orbit.grazingMarginKm ?? 0 } };
+  }
+  if (orbit.oemFile !== undefined) {
+    const target = resolveBeside(file, orbit.oemFile);
+    referenced.push(target);
+    const empty = { origin: target, objectName: '', segments: [] };
+    const text = readText(target, '');
+    if (!text.ok) {
+      appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.oemFile)` })));
+      return { kind: 'ephemeris', ephemeris: empty, grazingMarginKm: 0 };
+    }
+    const read = parseOem(text.value, target);
+    appendAll(problems, read.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.oemFile)` })));
+    return { kind: 'ephemeris', ephemeris: read.ephemeris ?? empty, grazingMarginKm: orbit.grazingMarginKm ?? 0 };
+  }
   let sets: ElementSet[] = [];
+  if (orbit.planned !== undefined) {
+    const set = plannedElementSet(orbit.planned, file, `${path}.planned`, problems);
+    if (set) {
+      sets = [set];
+      notices.push({
+        level: 'note',
+        message: `${file}: ${path}.planned: SGP4 mean elements from the planned orbit: ${set.omm!.meanMotionRevPerDay.toFixed(8)} rev/day, inclination ${set.omm!.inclinationDeg.toFixed(4)} deg, RAAN ${set.omm!.raanDeg.toFixed(4)} deg at ${isoFromMs(set.epochMs)}, no drag`,
+      });
+    }
+    if (orbit.catalogNumber !== undefined) problems.push({ file, path: `${path}.catalogNumber`, message: 'picks an element set from a file; a planned orbit has none (leave it out)' });
+    return { kind: 'elements', sets };
+  }
   if (orbit.tle !== undefined) sets = collect(parseTleText(orbit.tle, file, `${path}.tle`), problems);
   else if (orbit.tleFile !== undefined) {
     const target = resolveBeside(file, orbit.tleFile);
+    referenced.push(target);
     const text = readText(target, '');
     if (!text.ok) appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.tleFile)` })));
     else sets = collect(named(parseTleText(text.value, target, ''), `${file}: ${path}.tleFile`), problems);
   } else if (orbit.omm !== undefined) {
     const text = typeof orbit.omm === 'string' ? orbit.omm : JSON.stringify(orbit.omm);
-    sets = collect(parseOmm(text, file, `${path}.omm`, typeof orbit.omm === 'string' ? undefined : 'json'), problems);
+    sets = collect(parseOmm(text, file, `${path}.omm`, typeof orbit.omm === 'string' ? undefined : 'json'), problems, notices);
   } else if (orbit.ommFile !== undefined) {
     const target = resolveBeside(file, orbit.ommFile);
+    referenced.push(target);
     const text = readText(target, '');
     if (!text.ok) appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.ommFile)` })));
-    else sets = collect(named(parseOmm(text.value, target, ''), `${file}: ${path}.ommFile`), problems);
+    else sets = collect(named(parseOmm(text.value, target, ''), `${file}: ${path}.ommFile`), problems, notices);
   }
   if (orbit.catalogNumber !== undefined) {
     const wanted = String(orbit.catalogNumber).trim().replace(/^0+(?=.)/, '');
@@ -242,6 +310,71 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
   return { kind: 'elements', sets };
 }
 
+/** The SGP4 element set of a planned orbit (mean parameters), or undefined with problems pushed. */
+function plannedElementSet(o: NonNullable<SpacecraftEntry['orbit']['planned']>, file: string, path: string, problems: Problem[]): ElementSet | undefined {
+  const epochMs = parseInstant(o.epoch);
+  if (epochMs === undefined) {
+    problems.push({ file, path: `${path}.epoch`, message: `${JSON.stringify(o.epoch)} is not an ISO 8601 time from ${INSTANT_RANGE_TEXT} (e.g. "2026-03-05T00:00:00Z")` });
+    return undefined;
+  }
+  const semiMajorAxisKm = o.semiMajorAxisKm ?? WGS84_EQUATORIAL_RADIUS_KM + (o.altitudeKm ?? 0);
+  const eccentricity = o.eccentricity ?? 0;
+  const perigeeKm = semiMajorAxisKm * (1 - eccentricity) - WGS84_EQUATORIAL_RADIUS_KM;
+  if (perigeeKm < MIN_PERIGEE_HEIGHT_KM) {
+    problems.push({ file, path, message: `puts the perigee at ${perigeeKm.toFixed(0)} km; valid: a perigee at least ${MIN_PERIGEE_HEIGHT_KM} km above the WGS-84 equatorial radius` });
+    return undefined;
+  }
+  if (o.sunSynchronous && sunSynchronousInclinationDeg(semiMajorAxisKm, eccentricity) === undefined) {
+    problems.push({ file, path: `${path}.sunSynchronous`, message: `no inclination makes an orbit of semi-major axis ${semiMajorAxisKm.toFixed(0)} km sun-synchronous; valid: below about 12,350 km` });
+    return undefined;
+  }
+  let ltanHours: number | undefined;
+  if (o.ltan !== undefined) {
+    const [h, m, sec] = o.ltan.split(':').map(Number);
+    ltanHours = (h ?? 0) + (m ?? 0) / 60 + (sec ?? 0) / 3600;
+  }
+  const el = sgp4MeanElements({
+    semiMajorAxisKm,
+    eccentricity,
+    ...(o.inclinationDeg !== undefined ? { inclinationDeg: o.inclinationDeg } : {}),
+    ...(o.sunSynchronous ? { sunSynchronous: true } : {}),
+    ...(o.raanDeg !== undefined ? { raanDeg: o.raanDeg } : {}),
+    ...(ltanHours !== undefined ? { ltanHours } : {}),
+    argPerigeeDeg: o.argPerigeeDeg ?? 0,
+    meanAnomalyDeg: o.meanAnomalyDeg ?? 0,
+    epochMs,
+  });
+  const epochIso = `${new Date(epochMs).toISOString().slice(0, 23)}000`;
+  return {
+    origin: `${file}: ${path}`,
+    catalogNumber: '0',
+    epochMs,
+    omm: {
+      objectName: path,
+      objectId: '',
+      epochIso,
+      meanMotionRevPerDay: el.meanMotionRevPerDay,
+      eccentricity: el.eccentricity,
+      inclinationDeg: el.inclinationDeg,
+      raanDeg: el.raanDeg,
+      argPericenterDeg: el.argPerigeeDeg,
+      meanAnomalyDeg: el.meanAnomalyDeg,
+      bstarPerEarthRadii: 0,
+      meanMotionDotRevPerDay2: 0,
+      meanMotionDdotRevPerDay3: 0,
+      noradCatId: 0,
+      elementSetNo: 0,
+      revAtEpoch: 0,
+      classification: 'U',
+      ephemerisType: 0,
+    },
+  };
+}
+
+function isoFromMs(tMs: number): string {
+  return new Date(tMs).toISOString().replace('.000Z', 'Z');
+}
+
 function orbitField(orbit: SpacecraftEntry['orbit']): string {
   return orbit.tle !== undefined ? 'tle' : orbit.tleFile !== undefined ? 'tleFile' : orbit.omm !== undefined ? 'omm' : 'ommFile';
 }
@@ -253,12 +386,17 @@ function setLabel(set: ElementSet, file: string): string {
 }
 
 /** Problems in a file named by another say which field named it. */
-function named(result: { sets: ElementSet[]; problems: Problem[] }, by: string): { sets: ElementSet[]; problems: Problem[] } {
-  return { sets: result.sets, problems: result.problems.map((p) => ({ ...p, message: `${p.message} (named by ${by})` })) };
+function named(result: { sets: ElementSet[]; problems: Problem[]; warnings?: string[] }, by: string): { sets: ElementSet[]; problems: Problem[]; warnings: string[] } {
+  return {
+    sets: result.sets,
+    problems: result.problems.map((p) => ({ ...p, message: `${p.message} (named by ${by})` })),
+    warnings: (result.warnings ?? []).map((w) => `${w} (named by ${by})`),
+  };
 }
 
-function collect(result: { sets: ElementSet[]; problems: Problem[] }, problems: Problem[]): ElementSet[] {
+function collect(result: { sets: ElementSet[]; problems: Problem[]; warnings?: string[] }, problems: Problem[], notices: Notice[] = []): ElementSet[] {
   appendAll(problems, result.problems);
+  for (const w of result.warnings ?? []) notices.push({ level: 'warning', message: w });
   return result.sets;
 }
 
@@ -294,7 +432,7 @@ function toRadio(r: RadioEntry, file: string, path: string, problems: Problem[])
   };
 }
 
-function loadNetwork(file: string, problems: Problem[]): Station[] | undefined {
+function loadNetwork(file: string, problems: Problem[], notices: Notice[]): Station[] | undefined {
   const read = readData(file, problems);
   if (read === undefined) return undefined;
   const { data, text } = read;
@@ -306,34 +444,51 @@ function loadNetwork(file: string, problems: Problem[]): Station[] | undefined {
   }
   const before = problems.length;
   checkUnique(parsed.data.stations.map((s) => s.id), file, 'stations', problems);
-  const stations = parsed.data.stations.map((s, i) => toStation(s, file, `stations[${i}]`, problems));
+  const stations = parsed.data.stations.map((s, i) => toStation(s, file, `stations[${i}]`, problems, notices));
   return problems.length > before ? undefined : stations;
 }
 
-function toStation(s: StationEntry, file: string, path: string, problems: Problem[]): Station {
-  let mask: Mask = { kind: 'constant', elevationDeg: s.maskDeg ?? 5 };
-  if (s.horizon) {
-    const pts = [...s.horizon].sort((a, b) => a[0] - b[0]);
-    for (let i = 1; i < pts.length; i++) {
-      if (pts[i]![0] === pts[i - 1]![0]) {
-        problems.push({ file, path: `${path}.horizon`, message: `azimuth ${pts[i]![0]} appears twice; each azimuth once` });
-        break;
-      }
-    }
-    // 0 and 360 deg are one direction: the mask model refuses two elevations there
-    const first = pts[0];
-    const last = pts[pts.length - 1];
-    if (first && last && first[0] === 0 && last[0] === 360 && first[1] !== last[1]) {
-      problems.push({
-        file,
-        path: `${path}.horizon`,
-        message: `[0, ${first[1]}] and [360, ${last[1]}] are the same azimuth with different elevations; valid: give one of them, or the same elevation at both`,
-      });
-    }
-    mask = { kind: 'profile', azimuthDeg: pts.map((p) => p[0] % 360), elevationDeg: pts.map((p) => p[1]) };
-  }
-  const a = s.antenna;
-  const rx = s.receiver;
+function toStation(s: StationEntry, file: string, path: string, problems: Problem[], notices: Notice[] = []): Station {
+  const mask = toMask(s.maskDeg ?? 5, s.horizon, file, path, problems);
+  const receiver = s.antenna && s.receiver ? toReceiver(s.antenna, s.receiver, file, path, problems) : undefined;
+  const c = s.climate ?? {};
+  const feeds = receiver ? toFeeds(s, receiver, file, path, problems) : undefined;
+  const taken = [
+    ...(s.heightM === undefined ? ['heightM not given: 0 m above the WGS-84 ellipsoid'] : []),
+    ...(s.timeZone === undefined ? ['timeZone not given: local days and times in UTC'] : []),
+    ...(receiver === undefined ? ['no antenna and receiver: windows only, with no link, volume or margin'] : []),
+  ];
+  if (taken.length > 0) notices.push({ level: 'note', message: `${file}: ${path} (${s.id}): ${taken.join('; ')}` });
+  return {
+    id: s.id,
+    name: s.name ?? s.id,
+    latitudeDeg: s.latitudeDeg,
+    longitudeDeg: s.longitudeDeg > 180 ? s.longitudeDeg - 360 : s.longitudeDeg,
+    heightKm: (s.heightM ?? 0) / 1000,
+    mask,
+    timeZone: s.timeZone ?? 'UTC',
+    ...(receiver ? { receiver: feeds ? feeds[0]!.receiver : receiver } : {}),
+    pointingErrorDeg: s.antenna?.pointingErrorDeg ?? 0,
+    polarization: s.antenna?.polarization ?? 'RHCP',
+    climate: {
+      ...(c.rainRate001MmH !== undefined ? { rainRate001MmH: c.rainRate001MmH } : {}),
+      ...(c.rainHeightKm !== undefined ? { rainHeightKm: c.rainHeightKm } : {}),
+      ...(c.waterVapourDensityGM3 !== undefined ? { surfaceWaterVapourDensityGM3: c.waterVapourDensityGM3 } : {}),
+      ...(c.temperatureK !== undefined ? { surfaceTemperatureK: c.temperatureK } : {}),
+      ...(c.pressureHpa !== undefined ? { surfacePressureHpa: c.pressureHpa } : {}),
+      ...(c.nWetMedian !== undefined ? { nWetMedian: c.nWetMedian } : {}),
+      ...(c.cloudLiquidWaterKgM2 !== undefined ? { cloudLiquidWaterKgM2: c.cloudLiquidWaterKgM2 } : {}),
+    },
+    antennaCount: s.antenna?.count ?? 1,
+    setupTimeS: s.antenna?.setupTimeS ?? 0,
+    ...(feeds ? { feeds } : {}),
+  };
+}
+
+type AntennaEntry = NonNullable<StationEntry['antenna']>;
+type ReceiverEntry = NonNullable<StationEntry['receiver']>;
+
+function toReceiver(a: AntennaEntry, rx: ReceiverEntry, file: string, path: string, problems: Problem[]): Receiver {
   let receiver: Receiver;
   if (rx.gOverTDbK !== undefined) {
     receiver = {
@@ -358,30 +513,28 @@ function toStation(s: StationEntry, file: string, path: string, problems: Proble
   if (a.gainDbi !== undefined && a.dishDiameterM !== undefined && rx.gOverTDbK === undefined) {
     problems.push({ file, path: `${path}.antenna`, message: 'has both gainDbi and dishDiameterM; give one (the gain is computed from the dish)' });
   }
-  const c = s.climate ?? {};
-  const feeds = toFeeds(s, receiver, file, path, problems);
-  return {
-    id: s.id,
-    name: s.name ?? s.id,
-    latitudeDeg: s.latitudeDeg,
-    longitudeDeg: s.longitudeDeg > 180 ? s.longitudeDeg - 360 : s.longitudeDeg,
-    heightKm: s.heightM / 1000,
-    mask,
-    timeZone: s.timeZone,
-    receiver: feeds ? feeds[0]!.receiver : receiver,
-    pointingErrorDeg: a.pointingErrorDeg ?? 0,
-    polarization: a.polarization ?? 'RHCP',
-    climate: {
-      ...(c.rainRate001MmH !== undefined ? { rainRate001MmH: c.rainRate001MmH } : {}),
-      ...(c.rainHeightKm !== undefined ? { rainHeightKm: c.rainHeightKm } : {}),
-      ...(c.waterVapourDensityGM3 !== undefined ? { surfaceWaterVapourDensityGM3: c.waterVapourDensityGM3 } : {}),
-      ...(c.temperatureK !== undefined ? { surfaceTemperatureK: c.temperatureK } : {}),
-      ...(c.pressureHpa !== undefined ? { surfacePressureHpa: c.pressureHpa } : {}),
-      ...(c.nWetMedian !== undefined ? { nWetMedian: c.nWetMedian } : {}),
-      ...(c.cloudLiquidWaterKgM2 !== undefined ? { cloudLiquidWaterKgM2: c.cloudLiquidWaterKgM2 } : {}),
-    },
-    antennaCount: a.count ?? 1,
-    setupTimeS: a.setupTimeS ?? 0,
-    ...(feeds ? { feeds } : {}),
-  };
+  return receiver;
+}
+
+/** A mask from a constant or a horizon profile ([azimuthDeg, elevationDeg] points), checked. */
+function toMask(constantDeg: number, horizon: [number, number][] | undefined, file: string, path: string, problems: Problem[]): Mask {
+  if (!horizon) return { kind: 'constant', elevationDeg: constantDeg };
+  const pts = [...horizon].sort((a, b) => a[0] - b[0]);
+  for (let i = 1; i < pts.length; i++) {
+    if (pts[i]![0] === pts[i - 1]![0]) {
+      problems.push({ file, path: `${path}.horizon`, message: `azimuth ${pts[i]![0]} appears twice; each azimuth once` });
+      break;
+    }
+  }
+  // 0 and 360 deg are one direction: the mask model refuses two elevations there
+  const first = pts[0];
+  const last = pts[pts.length - 1];
+  if (first && last && first[0] === 0 && last[0] === 360 && first[1] !== last[1]) {
+    problems.push({
+      file,
+      path: `${path}.horizon`,
+      message: `[0, ${first[1]}] and [360, ${last[1]}] are the same azimuth with different elevations; valid: give one of them, or the same elevation at both`,
+    });
+  }
+  return { kind: 'profile', azimuthDeg: pts.map((p) => p[0] % 360), elevationDeg: pts.map((p) => p[1]) };
 }

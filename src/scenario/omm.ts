@@ -60,7 +60,6 @@ type Report = (message: string) => void;
 /** Keywords SGP4 needs, with what each is (for "missing" messages). */
 const REQUIRED: readonly (readonly [string, string])[] = [
   ['OBJECT_NAME', 'spacecraft name'],
-  ['OBJECT_ID', 'international designator, e.g. 2031-042A'],
   ['EPOCH', 'epoch, UTC, YYYY-MM-DDThh:mm:ss[.f] or YYYY-DDDThh:mm:ss[.f]'],
   ['MEAN_MOTION', 'mean motion, rev/day, > 0'],
   ['ECCENTRICITY', 'eccentricity, 0 <= e < 1'],
@@ -344,7 +343,7 @@ function readJson(text: string, report: Report): Message[] {
 
 // ---------------------------------------------------------------- checks
 
-function checkMessage(msg: Message, label: string, origin: string, report: Report): ElementSet | undefined {
+function checkMessage(msg: Message, label: string, origin: string, report: Report, warn: Report): ElementSet | undefined {
   let bad = false;
   const fail = (m: string): void => {
     bad = true;
@@ -365,6 +364,9 @@ function checkMessage(msg: Message, label: string, origin: string, report: Repor
     const empty = msg.has(key) ? ' (empty)' : '';
     fail(`missing required keyword ${key}${empty}${hint}; valid: ${key} given: ${what}`);
   }
+
+  // an object not yet launched (or not yet catalogued) has no international designator
+  if (!present('OBJECT_ID')) warn(`${label}no OBJECT_ID (international designator, e.g. 2031-042A); accepted without one`);
 
   const fixed = (key: string, allowed: readonly string[], why: string): void => {
     const e = present(key);
@@ -497,9 +499,10 @@ export function parseOmm(
   file: string,
   fieldPath: string,
   format?: OmmFormat | 'auto',
-): { sets: ElementSet[]; problems: Problem[] } {
+): { sets: ElementSet[]; problems: Problem[]; warnings: string[] } {
   const fmt = format === undefined || format === 'auto' ? detectFormat(text) : format;
   const problems: Problem[] = [];
+  const warnings: string[] = [];
   const report: Report = (message) => problems.push({ file, path: fieldPath, message });
   const kind = fmt.toUpperCase();
   const readers: Record<OmmFormat, (t: string, r: Report) => Message[]> = {
@@ -519,7 +522,7 @@ export function parseOmm(
     const numbered = messages.length > 1 ? ` ${i + 1} of ${messages.length}` : '';
     const label = `OMM ${kind}${numbered}${name ? ` (${quote(name)})` : ''}: `;
     const origin = base + (messages.length > 1 ? ` [${i}]` : '') + (name ? ` (${name})` : '');
-    const set = checkMessage(msg, label, origin, report);
+    const set = checkMessage(msg, label, origin, report, (m) => warnings.push(`${base}: ${m}`));
     if (!set) return;
     // two different sets for one object at one epoch: which one is meant is unknowable
     const key = `${set.omm?.noradCatId}|${set.epochMs}`;
@@ -534,5 +537,5 @@ export function parseOmm(
     if (!twin) byKey.set(key, { set, index: i });
     sets.push(set);
   });
-  return { sets, problems };
+  return { sets, problems, warnings };
 }

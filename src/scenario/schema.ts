@@ -13,10 +13,20 @@ import { z } from 'zod';
 import { IANAZone } from 'luxon';
 
 const finite = () => z.number({ message: 'must be a number' }).refine(Number.isFinite, { message: 'must be a finite number' });
+// The bounds are checked by refine (our messages) and stated by meta, so that the JSON
+// Schema export (scenario/json-schema.ts) carries them too.
 const range = (min: number, max: number) =>
-  finite().refine((v) => v >= min && v <= max, { message: `is outside ${min}..${max}` });
-const positive = () => finite().refine((v) => v > 0, { message: 'must be > 0' });
-const nonNegative = () => finite().refine((v) => v >= 0, { message: 'must be >= 0' });
+  finite()
+    .refine((v) => v >= min && v <= max, { message: `is outside ${min}..${max}` })
+    .meta({ minimum: min, maximum: max });
+const positive = () =>
+  finite()
+    .refine((v) => v > 0, { message: 'must be > 0' })
+    .meta({ exclusiveMinimum: 0 });
+const nonNegative = () =>
+  finite()
+    .refine((v) => v >= 0, { message: 'must be >= 0' })
+    .meta({ minimum: 0 });
 const id = () =>
   z
     .string({ message: 'must be a string' })
@@ -42,6 +52,35 @@ function exactlyOne<T extends Record<string, unknown>>(keys: (keyof T & string)[
   };
 }
 
+/** Mean orbit parameters of an orbit before launch (converted to SGP4 mean elements, geometry/mean-elements.ts). */
+export const plannedOrbitSchema = z
+  .object({
+    /** Mean altitude above the equatorial radius, or the mean semi-major axis (exactly one). */
+    altitudeKm: range(100, 100_000).optional(),
+    semiMajorAxisKm: range(6478, 106_378).optional(),
+    eccentricity: finite()
+      .refine((v) => v >= 0 && v < 0.9, { message: 'must be in 0..0.9 (exclusive)' })
+      .optional(),
+    inclinationDeg: range(0, 180).optional(),
+    sunSynchronous: z.literal(true, { message: 'must be true' }).optional(),
+    /** Local (apparent solar) time of the ascending node, "HH:MM" or "HH:MM:SS"; or raanDeg. */
+    ltan: z
+      .string({ message: 'must be a time of day "HH:MM" (e.g. "10:30")' })
+      .regex(/^([01]\d|2[0-3]):[0-5]\d(:[0-5]\d(\.\d+)?)?$/, { message: 'must be a time of day "HH:MM" or "HH:MM:SS" (e.g. "10:30")' })
+      .optional(),
+    raanDeg: range(0, 360).optional(),
+    argPerigeeDeg: range(0, 360).optional(),
+    meanAnomalyDeg: range(0, 360).optional(),
+    /** Epoch of the elements, ISO 8601 (UTC unless a zone is given). */
+    epoch: text(),
+  })
+  .strict()
+  .superRefine((o, ctx) => {
+    exactlyOne<typeof o>(['altitudeKm', 'semiMajorAxisKm'])(o, ctx);
+    exactlyOne<typeof o>(['inclinationDeg', 'sunSynchronous'])(o, ctx);
+    if (o.ltan !== undefined && o.raanDeg !== undefined) ctx.addIssue({ code: 'custom', message: 'has ltan and raanDeg; give at most one of them' });
+  });
+
 export const orbitSchema = z
   .object({
     tle: text().optional(),
@@ -51,6 +90,7 @@ export const orbitSchema = z
     /** Picks the sets of one object from a file or text that holds several. */
     catalogNumber: z.union([z.string(), z.number()], { message: 'must be a catalogue number (string or number)' }).optional(),
     moon: z.literal(true, { message: 'must be true' }).optional(),
+    planned: plannedOrbitSchema.optional(),
     sky: z
       .object({
         rightAscensionDeg: range(0, 360),
@@ -59,9 +99,49 @@ export const orbitSchema = z
       })
       .strict()
       .optional(),
+    /** A CCSDS OEM file (KVN or XML) from flight dynamics. */
+    oemFile: text().optional(),
+    /** A transmitter on the lunar surface (selenographic, east-positive longitude). */
+    lunarSite: z
+      .object({
+        latitudeDeg: range(-90, 90),
+        longitudeDeg: range(-180, 360),
+        heightM: range(-10_000, 11_000),
+        maskDeg: range(-10, 90).optional(),
+        horizon: z
+          .array(z.tuple([range(0, 360), range(-10, 90)], { message: 'each point must be [azimuthDeg, elevationDeg]' }))
+          .min(2, { message: 'needs at least 2 [azimuthDeg, elevationDeg] points' })
+          .max(MAX_PROFILE_POINTS, { message: `has more than ${MAX_PROFILE_POINTS} points (0.1 deg steps)` })
+          .optional(),
+      })
+      .strict()
+      .optional(),
+    /** Mean Keplerian elements about the Moon, referred to the lunar equator at the epoch (two-body). */
+    lunarOrbit: z
+      .object({
+        epoch: text(),
+        semiMajorAxisKm: range(1737.4 + 10, 60_000),
+        eccentricity: finite().refine((v) => v >= 0 && v < 0.95, { message: 'must be in 0..0.95' }),
+        inclinationDeg: range(0, 180),
+        raanDeg: range(0, 360),
+        argPericenterDeg: range(0, 360),
+        meanAnomalyDeg: range(0, 360),
+      })
+      .strict()
+      .optional(),
+    /** Height above the mean lunar radius within which a line of sight counts as cut by the Moon, km (default 0). */
+    grazingMarginKm: range(0, 100).optional(),
   })
   .strict()
-  .superRefine(exactlyOne(['tle', 'tleFile', 'omm', 'ommFile', 'moon', 'sky']));
+  .superRefine(exactlyOne(['tle', 'tleFile', 'omm', 'ommFile', 'planned', 'moon', 'sky', 'oemFile', 'lunarSite', 'lunarOrbit']))
+  .superRefine((o, ctx) => {
+    if (o.grazingMarginKm !== undefined && o.oemFile === undefined && o.lunarOrbit === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['grazingMarginKm'], message: 'applies to oemFile and lunarOrbit only' });
+    }
+    if (o.lunarSite && o.lunarSite.maskDeg !== undefined && o.lunarSite.horizon !== undefined) {
+      ctx.addIssue({ code: 'custom', path: ['lunarSite'], message: 'has maskDeg and horizon; give one of them' });
+    }
+  });
 
 export const antennaTxSchema = z
   .object({
@@ -215,14 +295,17 @@ export const stationSchema = z
     name: text().optional(),
     latitudeDeg: range(-90, 90),
     longitudeDeg: range(-180, 360),
-    heightM: range(-500, 9000),
+    /** Above the WGS-84 ellipsoid; default 0 (with a note). */
+    heightM: range(-500, 9000).optional(),
     maskDeg: range(-5, 90).optional(),
     horizon: z
       .array(z.tuple([range(0, 360), range(-5, 90)], { message: 'each point must be [azimuthDeg, elevationDeg]' }))
       .min(2, { message: 'needs at least 2 [azimuthDeg, elevationDeg] points' })
       .max(MAX_PROFILE_POINTS, { message: `has more than ${MAX_PROFILE_POINTS} points (0.1 deg steps)` })
       .optional(),
-    timeZone: timeZone(),
+    /** IANA zone for local days and times; default UTC (with a note). */
+    timeZone: timeZone().optional(),
+    /** Antenna and receiver are optional together: a station without them has windows but no link. */
     antenna: z
       .object({
         dishDiameterM: positive().optional(),
@@ -240,8 +323,9 @@ export const stationSchema = z
         if (a.gainDbi === undefined && a.dishDiameterM === undefined) {
           ctx.addIssue({ code: 'custom', message: 'needs dishDiameterM (with apertureEfficiency) or gainDbi' });
         }
-      }),
-    receiver: receiverSchema,
+      })
+      .optional(),
+    receiver: receiverSchema.optional(),
     climate: z
       .object({
         rainRate001MmH: range(0, 300).optional(),
@@ -261,6 +345,15 @@ export const stationSchema = z
   .superRefine((s, ctx) => {
     if (s.maskDeg !== undefined && s.horizon !== undefined) {
       ctx.addIssue({ code: 'custom', message: 'has maskDeg and horizon; give one of them' });
+    }
+    if ((s.antenna === undefined) !== (s.receiver === undefined)) {
+      ctx.addIssue({
+        code: 'custom',
+        message: `has ${s.antenna ? 'an antenna but no receiver' : 'a receiver but no antenna'}; give both (for a link) or neither (windows only)`,
+      });
+    }
+    if (s.feeds !== undefined && s.receiver === undefined) {
+      ctx.addIssue({ code: 'custom', message: 'has feeds but no antenna and receiver for them to start from; give the station an antenna and a receiver' });
     }
   });
 

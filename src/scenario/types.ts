@@ -43,7 +43,55 @@ export interface OmmElements {
 export type OrbitSource =
   | { kind: 'elements'; sets: ElementSet[] }
   | { kind: 'moon' }
-  | { kind: 'fixedSky'; rightAscensionDeg: number; declinationDeg: number; rangeKm: number };
+  | { kind: 'fixedSky'; rightAscensionDeg: number; declinationDeg: number; rangeKm: number }
+  | { kind: 'ephemeris'; ephemeris: Ephemeris; grazingMarginKm: number }
+  | { kind: 'lunarSite'; site: LunarSite }
+  | { kind: 'lunarOrbit'; elements: LunarElements };
+
+/** A CCSDS OEM read and checked (scenario/oem.ts): segments ordered by usable start. */
+export interface Ephemeris {
+  origin: string;
+  objectName: string;
+  segments: EphemerisSegment[];
+}
+
+export interface EphemerisSegment {
+  objectName: string;
+  /** Centre of the states; axes EME2000 (ICRF and GCRF taken as the same axes). */
+  centre: 'EARTH' | 'MOON' | 'SUN' | 'EARTH-MOON BARYCENTER';
+  interpolation: 'LAGRANGE' | 'HERMITE';
+  degree: number;
+  /** Usable span, UTC epoch ms. */
+  useableStartMs: number;
+  useableStopMs: number;
+  /** Node epochs, UTC epoch ms, strictly increasing. */
+  tMs: Float64Array;
+  /** Per node x y z (km) vx vy vz (km/s). */
+  states: Float64Array;
+}
+
+/** A transmitter on the lunar surface (selenographic, mean Earth / polar axis frame). */
+export interface LunarSite {
+  latitudeDeg: number;
+  longitudeDeg: number;
+  /** Height above the mean lunar radius, km. */
+  heightKm: number;
+  /** The site's own horizon mask on the Moon (elevation of the Earth needed, by azimuth). */
+  mask: Mask;
+}
+
+/** Mean Keplerian elements of a lunar orbiter, Moon-centred, referred to the lunar equator at the epoch. */
+export interface LunarElements {
+  epochMs: number;
+  semiMajorAxisKm: number;
+  eccentricity: number;
+  inclinationDeg: number;
+  raanDeg: number;
+  argPericenterDeg: number;
+  meanAnomalyDeg: number;
+  /** Height above the mean lunar radius at which a line of sight counts as grazing (occulted), km. */
+  grazingMarginKm: number;
+}
 
 /** Transmit antenna: a constant gain, or a pattern versus off-boresight angle. */
 export type TxAntenna =
@@ -177,7 +225,8 @@ export interface Station {
   heightKm: number;
   mask: Mask;
   timeZone: string;
-  receiver: Receiver;
+  /** Absent: the station has no antenna or receiver in its file; its windows carry no link. */
+  receiver?: Receiver;
   pointingErrorDeg: number;
   polarization: Polarization;
   climate: Climate;
@@ -220,4 +269,21 @@ export interface Scenario {
   span?: Span;
   link: LinkSettings;
   sources: { spacecraftFile: string; networkFile: string };
+  /** Every file read (spacecraft file, network file, element-set files they name), for provenance. */
+  inputFiles: InputFile[];
+  /** Defaults taken and inputs accepted with a caveat, for the CLI to print before the work. */
+  notices: Notice[];
+}
+
+export interface InputFile {
+  path: string;
+  sha256: string;
+  bytes: number;
+}
+
+/** Something the user should know about the files that is not an error. */
+export interface Notice {
+  level: 'note' | 'warning';
+  /** "file: field: what was taken or assumed". */
+  message: string;
 }

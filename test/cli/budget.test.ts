@@ -227,3 +227,18 @@ describe('a Moon target with --range-km and no elevation', () => {
     expect(err).toMatch(/MOONWREN is at the Moon; .*give --elevation/);
   });
 });
+
+describe('a lunar target in the budget', () => {
+  it('carries the Moon\'s noise: the 225 K disc (Krotikov & Troitskii, from memory) centred in the 13 m X-band beam, T_b (1 - exp(-4 ln2 rho^2 / theta3^2)) through the atmosphere', async () => {
+    const terms = await budget(['--spacecraft-id', 'TERN-BASE', '--station-id', 'SAL', '--elevation', '30']);
+    const moon = term(terms, 'Moon in the beam (disc centred, through the atmosphere)');
+    const range = term(terms, 'Slant range');
+    const theta3 = (70 * (C_M_S / 8.44e9)) / 13; // 70 lambda / D (antenna.ts, common practice)
+    const rho = (Math.asin(1737.4 / range) * 180) / Math.PI;
+    const want = 225 * (1 - Math.exp((-4 * Math.LN2 * rho * rho) / (theta3 * theta3))) * 10 ** (-term(terms, 'Atmosphere total') / -10);
+    expect(Math.abs(moon - want)).toBeLessThan(0.5);
+    // an Earth orbiter has no such term
+    const leo = await budget(['--spacecraft-id', 'KESTREL-1', '--station-id', 'SAL', '--elevation', '30']);
+    expect(leo.find((t) => t.name.startsWith('Moon in the beam'))).toBeUndefined();
+  });
+});

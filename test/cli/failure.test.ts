@@ -29,7 +29,7 @@ const demoFleet = JSON.parse(readFileSync(join(root, 'ephemerides', 'demo-fleet.
 const version = (JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { version: string }).version;
 const STATIONS = ['FRV', 'ALK', 'MDL', 'SAL', 'EQP', 'SCX'];
 /** What `plan --days 1` writes on the demo network (no --schedule). */
-const PLAN_FILES = ['calendar/', ...STATIONS.map((s) => `calendar/${s}.ics`), 'contacts.csv', 'contacts.ics', 'contacts.jsonl', 'daily.csv', 'plan.json', 'report.html'].sort();
+const PLAN_FILES = ['calendar/', ...STATIONS.map((s) => `calendar/${s}.ics`), 'contacts.csv', 'contacts.ics', 'contacts.jsonl', 'daily.csv', 'plan.json', 'report.html', 'sun-outages.csv'].sort();
 
 // ------------------------------------------------------------------ inputs
 
@@ -576,7 +576,7 @@ const cases: Case[] = [
     command: (c) => ['check', '--spacecraft', c.files['fleet.json']!, ...net],
     exit: 0,
     stream: 'out',
-    first: /^ok: .*fleet\.json: 1 spacecraft, 1 element sets, 1 radios$/,
+    first: /^ok: .*fleet\.json: 1 spacecraft, 1 element set, 1 radio$/,
   },
   // 14. stale temp files of dead processes
   {

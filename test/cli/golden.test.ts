@@ -33,11 +33,11 @@ function compare(name: string, actual: string): void {
 }
 
 describe('golden files on the demo week', () => {
-  it('plan: plan.json, contacts.csv, daily.csv', async () => {
+  it('plan: plan.json, contacts.csv, daily.csv, sun-outages.csv', async () => {
     const out = mkdtempSync(join(tmpdir(), 'pb-golden-plan-'));
     const r = await cli(['plan', '--out', out]);
     expect(r.code).toBe(0);
-    for (const f of ['plan.json', 'contacts.csv', 'daily.csv']) compare(`plan/${f}`, readFileSync(join(out, f), 'utf8'));
+    for (const f of ['plan.json', 'contacts.csv', 'daily.csv', 'sun-outages.csv']) compare(`plan/${f}`, readFileSync(join(out, f), 'utf8'));
     // contacts.jsonl: line i is plan.json's contacts[i], compact (jsonlines.org: one JSON value per line)
     const lines = readFileSync(join(out, 'contacts.jsonl'), 'utf8').split('\n');
     expect(lines.pop()).toBe('');

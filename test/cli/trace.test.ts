@@ -25,8 +25,9 @@ const EXPECTED_COLUMNS = [
   'in_contact', 'free_space_loss_db', 'gas_db', 'rain_db', 'cloud_db', 'scintillation_db', 'atmosphere_db',
   'pointing_loss_db', 'polarization_loss_db', 'eirp_dbw', 'g_over_t_db_k', 'c_n0_db_hz', 'eb_n0_db', 'es_n0_db',
   'margin_db', 'modcod', 'rate_bps', 'shannon_rate_bps', 'margin_in_use_db',
+  'body_noise_k', 'sun_offset_deg', 'sun_earth_probe_deg', 'lunar_site_earth_elevation_deg', 'lunar_site_earth_azimuth_deg',
 ];
-const UNIT_SUFFIX = /_(deg|km|km_s|hz|db|dbw|db_k|db_hz|bps)$/;
+const UNIT_SUFFIX = /_(deg|km|km_s|hz|db|dbw|db_k|db_hz|bps|k)$/;
 const START = '2026-03-05T00:00:00Z';
 const START_MS = Date.parse(START);
 
@@ -63,6 +64,32 @@ describe('passbudget trace', () => {
     expect(header).toEqual(EXPECTED_COLUMNS);
     const plain = new Set(['time_utc', 'spacecraft', 'station', 'in_contact', 'modcod']);
     for (const h of header.filter((c) => !plain.has(c))) expect(h).toMatch(UNIT_SUFFIX);
+  });
+
+  it('a lunar surface site: where the station lies in its sky, the Moon\'s noise in the beam, one-way light time in the range', async () => {
+    // TERN-BASE at SAL (13 m dish, X-band): the Moon's disc (0.26 deg radius) fills much of the
+    // 0.19 deg beam; 2 h at 10 min in contact
+    const { code, out } = await trace(['--spacecraft-id', 'TERN-BASE', '--station-id', 'SAL', '--days', '0.1', '--step', '600s', '--in-contact']);
+    expect(code).toBe(0);
+    const { rows } = parse(out);
+    expect(rows.length).toBeGreaterThan(5);
+    for (const r of rows) {
+      const el = Number(r.lunar_site_earth_elevation_deg);
+      // the site is at -84.2 deg: the Earth stays within a few degrees of its horizon (libration, common practice: +-6.9 deg)
+      expect(el).toBeGreaterThan(-2);
+      expect(el).toBeLessThan(5.8 + 6.9);
+      const noise = Number(r.body_noise_k);
+      expect(noise).toBeGreaterThan(50);
+      expect(noise).toBeLessThan(225);
+      expect(Number(r.range_km) / 299_792.458).toBeGreaterThan(1.2);
+      expect(Number(r.range_km) / 299_792.458).toBeLessThan(1.4);
+    }
+  });
+
+  it('an Earth orbiter has no lunar-site columns', async () => {
+    const { out } = await trace(['--spacecraft-id', 'HERON-2', '--station-id', 'SAL', '--days', '0.01', '--step', '60s']);
+    const { rows } = parse(out);
+    for (const r of rows) expect(r.lunar_site_earth_elevation_deg).toBe('');
   });
 
   it('one spacecraft, all stations: steps x pairs rows, in grid order; geometry equals lookFrom', async () => {

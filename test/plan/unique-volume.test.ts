@@ -134,7 +134,9 @@ describe('two co-located stations seeing one spacecraft at once (link engine)', 
     const [big, little] = ['SAL', 'SAL-B'].map((id) => p.contacts.find((c) => c.stationId === id)!.link!.volumeBits);
     expect(big!).toBeGreaterThan(little!);
     const t = spacecraftTotals(p)[0]!;
-    expect(t.volumeBits).toBe(big);
+    // the same integral summed in another order (rate pieces vs 15-minute bins): equal to
+    // float rounding (the Sun outage at 11:24 cuts the day into many pieces)
+    expect(Math.abs(t.volumeBits - big!)).toBeLessThanOrEqual(1e-12 * big!);
     expect(t.stationSumVolumeBits).toBe(big! + little!);
   });
 });

@@ -78,9 +78,9 @@ async function cli(args: string[]): Promise<{ code: number; out: string; err: st
 }
 
 describe('scenario loading', () => {
-  it('loads the bundled demo: six invented spacecraft, six invented stations', () => {
+  it('loads the bundled demo: eight invented spacecraft, six invented stations', () => {
     const sc = loadScenario(demoFiles());
-    expect(sc.spacecraft.map((s) => s.id)).toEqual(['KESTREL-1', 'HERON-2', 'PETREL-3', 'MOONWREN', 'ANCHOR-G', 'DRIFTER']);
+    expect(sc.spacecraft.map((s) => s.id)).toEqual(['KESTREL-1', 'HERON-2', 'PETREL-3', 'MOONWREN', 'TERN-BASE', 'ANCHOR-G', 'DRIFTER', 'CURLEW']);
     expect(sc.stations).toHaveLength(6);
     expect(sc.span).toEqual({ startMs: Date.UTC(2026, 2, 5), endMs: Date.UTC(2026, 2, 12) });
     // The OMM file and the TLE file give the expected catalogue numbers.
@@ -187,7 +187,7 @@ describe('passbudget check', () => {
   it('passes the demo with exit 0', async () => {
     const r = await cli(['check']);
     expect(r.code).toBe(0);
-    expect(r.out).toMatch(/6 spacecraft/);
+    expect(r.out).toMatch(/8 spacecraft/);
   });
 
   it('prints one line per problem, exit 2, no stack trace', async () => {
@@ -206,5 +206,56 @@ describe('passbudget check', () => {
     const r = await cli(['plan', '--days', 'seven', '--no-write']);
     expect(r.code).toBe(2);
     expect(r.err.trim()).toBe('error: --days: "seven" must be a number of days in (0, 366]');
+  });
+
+  it('a station without antenna and receiver, and a spacecraft without radios, load with notes (heightM 0, UTC)', () => {
+    const s = write('windows-only-fleet.json', { spacecraft: [{ id: 'PBX-1', orbit: { tle: `${L1}\n${L2}` } }] });
+    const n = write('windows-only-net.json', { stations: [{ id: 'BARE', latitudeDeg: 60, longitudeDeg: 10 }] });
+    const sc = loadScenario({ spacecraftFile: s, networkFile: n });
+    const st = sc.stations[0]!;
+    expect(st.receiver).toBeUndefined();
+    expect(st.heightKm).toBe(0);
+    expect(st.timeZone).toBe('UTC');
+    expect(sc.spacecraft[0]!.radios).toEqual([]);
+    const notes = sc.notices.map((x) => `${x.level}: ${x.message}`).join('\n');
+    expect(notes).toMatch(
+      /^note: .*windows-only-net\.json: stations\[0\] \(BARE\): heightM not given: 0 m above the WGS-84 ellipsoid; timeZone not given: local days and times in UTC; no antenna and receiver: windows only/,
+    );
+  });
+
+  it('an antenna without a receiver (or the reverse) is one problem naming both ways out', () => {
+    const text = problemsOf(fleet({ tle: `${L1}\n${L2}` }), { stations: [{ ...goodStation, receiver: undefined }] }).join('\n');
+    expect(text).toMatch(/stations\[0\]: has an antenna but no receiver; give both \(for a link\) or neither \(windows only\)/);
+  });
+
+  it('an OMM without OBJECT_ID (not yet catalogued) is accepted with a warning', () => {
+    const omm = {
+      OBJECT_NAME: 'PBX-TEST',
+      EPOCH: '2026-03-04T12:00:00',
+      MEAN_MOTION: 15.055,
+      ECCENTRICITY: 0.0012,
+      INCLINATION: 97.58,
+      RA_OF_ASC_NODE: 138.2,
+      ARG_OF_PERICENTER: 90,
+      MEAN_ANOMALY: 270.1,
+      NORAD_CAT_ID: 90001,
+      BSTAR: 0.000072,
+      MEAN_MOTION_DOT: 0.000012,
+      MEAN_MOTION_DDOT: 0,
+    };
+    const sc = loadScenario({ spacecraftFile: write('omm-no-id.json', fleet({ omm })), networkFile: write('omm-no-id-net.json', { stations: [goodStation] }) });
+    expect(sc.spacecraft[0]!.orbit.kind).toBe('elements');
+    expect(sc.notices.filter((x) => x.level === 'warning').map((x) => x.message)).toEqual([
+      expect.stringMatching(/omm-no-id\.json: spacecraft\[0\]\.orbit\.omm: OMM JSON \("PBX-TEST"\): no OBJECT_ID .*accepted without one/),
+    ]);
+  });
+
+  it('a planned orbit: exactly one of altitudeKm / semiMajorAxisKm and of inclinationDeg / sunSynchronous', () => {
+    const text = problemsOf(fleet({ planned: { altitudeKm: 500, semiMajorAxisKm: 6900, epoch: '2026-03-05T00:00:00Z' } })).join('\n');
+    expect(text).toMatch(/orbit\.planned: has altitudeKm and semiMajorAxisKm; give exactly one of altitudeKm, semiMajorAxisKm/);
+    expect(text).toMatch(/orbit\.planned: needs exactly one of inclinationDeg, sunSynchronous/);
+    expect(problemsOf(fleet({ planned: { altitudeKm: 9000, sunSynchronous: true, epoch: '2026-03-05T00:00:00Z' } })).join('\n')).toMatch(
+      /orbit\.planned\.sunSynchronous: no inclination makes an orbit of semi-major axis 15378 km sun-synchronous/,
+    );
   });
 });

@@ -52,3 +52,50 @@ export function rotate3(m: Float64Array, v: ArrayLike<number>, out: Float64Array
   out[outOffset + 1] = m[3]! * x + m[4]! * y + m[5]! * z;
   out[outOffset + 2] = m[6]! * x + m[7]! * y + m[8]! * z;
 }
+
+/** Node spacing of EqdTable, ms (nutation's shortest large term has a 13.7-day period). */
+export const EQD_TABLE_STEP_MS = 6 * 3_600_000;
+
+/**
+ * EQJ -> EQD rotation and the GAST - GMST offset tabulated over a span every
+ * EQD_TABLE_STEP_MS, linearly interpolated (element by element; the matrix stays
+ * orthonormal to ~1e-12 over a node interval: error well below 1 mas), with the
+ * rotation's time derivative from the node difference. Allocation-free lookups.
+ */
+export class EqdTable {
+  private readonly t0Ms: number;
+  private readonly n: number;
+  private readonly m: Float64Array;
+  private readonly off: Float64Array;
+
+  constructor(startMs: number, endMs: number) {
+    this.t0Ms = startMs - EQD_TABLE_STEP_MS;
+    this.n = Math.ceil((endMs + EQD_TABLE_STEP_MS - this.t0Ms) / EQD_TABLE_STEP_MS) + 1;
+    this.m = new Float64Array(9 * this.n);
+    this.off = new Float64Array(this.n);
+    const tmp = new Float64Array(9);
+    for (let k = 0; k < this.n; k++) {
+      const t = this.t0Ms + k * EQD_TABLE_STEP_MS;
+      eqjToEqdMatrix(t, tmp);
+      this.m.set(tmp, 9 * k);
+      this.off[k] = siderealOffsetRad(t);
+    }
+  }
+
+  /** M(t) into m, dM/dt (per s) into mDot; returns GAST - GMST at t, rad. */
+  at(tMs: number, m: Float64Array, mDot: Float64Array): number {
+    const x = (tMs - this.t0Ms) / EQD_TABLE_STEP_MS;
+    const k = Math.min(this.n - 2, Math.max(0, Math.floor(x)));
+    const s = x - k;
+    const a = 9 * k;
+    const b = a + 9;
+    const tab = this.m;
+    for (let i = 0; i < 9; i++) {
+      const ma = tab[a + i]!;
+      const mb = tab[b + i]!;
+      m[i] = ma + s * (mb - ma);
+      mDot[i] = (mb - ma) / (EQD_TABLE_STEP_MS / 1000);
+    }
+    return this.off[k]! + s * (this.off[k + 1]! - this.off[k]!);
+  }
+}

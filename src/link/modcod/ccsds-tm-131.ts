@@ -6,7 +6,7 @@
  * issues 2 (2011) to 5; performance CCSDS 130.1-G-2 (Nov 2012) / 130.1-G-3 (Jun 2020)
  * (green book, Summary of Concept and Rationale); uncoded rows from Pb = Q(sqrt(2 Eb/N0)).
  * Each row keeps the reference sheet's status and tolerance: only the uncoded rows
- * (computed) and the RS+conv "EMWIN-N" row (a published link budget) are solid; the
+ * (computed) and the "RS(255,223)+conv r1/2 BER 1e-6" row (a published link budget) are solid; the
  * convolutional rows are recalled and supported by a union bound; turbo, AR4JA and
  * (8160,7136) rows are approximate curve readings FROM MEMORY, UNVERIFIED: use them
  * with their toleranceDb. Transcribed from ccsds_tm_coding.csv. Do not edit by hand.
@@ -150,7 +150,7 @@ export const CCSDS_TM_CODES: readonly CcsdsCode[] = [
     notes: "see next row for a published value",
   },
   {
-    name: "RS+conv BER 1e-6 (EMWIN-N)",
+    name: "RS(255,223)+conv r1/2 BER 1e-6",
     code: "Reed-Solomon (255,223) + convolutional r=1/2 (concatenated, rate 0.437)",
     rate: 223 / 510,
     rateText: "0.437",

@@ -49,6 +49,41 @@ svg text.flag,.flag{fill:${WARN};color:${WARN};font-weight:600}
 .fail{color:${WARN};font-weight:600}
 ul.warnings{margin:0;padding-left:18px;font-size:13px}
 footer{color:${MUTED};font-size:12px;margin-top:22px}
+footer#provenance{background:${SURFACE};border:1px solid ${RULE};padding:14px 20px;color:${INK}}
+footer#provenance h2{font-size:15px}footer#provenance h3{margin-top:10px}
+dl.prov{display:flex;flex-wrap:wrap;gap:6px 22px;margin:6px 0 8px}dl.prov dt{font-size:11px;color:${MUTED};text-transform:uppercase;letter-spacing:.06em}dl.prov dd{margin:0}
+.mono{font-family:ui-monospace,"DejaVu Sans Mono",monospace;font-size:11px}
+.attention{margin:14px 0 0;border:1px solid ${WARN};border-left:6px solid ${WARN};background:${SURFACE};padding:8px 14px}
+.attention p{margin:0;color:${WARN}}.attention ul{margin:4px 0 0;padding-left:18px;font-size:13px}
+tr.alert td{background:#f6e7e2}
+table.spacecraft td:last-child{white-space:normal;max-width:260px}
+table.contacts td.text{white-space:normal;max-width:230px;font-size:12px}
+.sd{font-size:12px}
+.sd-row{display:grid;grid-template-columns:170px 92px 1fr 130px;align-items:center;min-height:15px;column-gap:8px}
+.sd-row.sd-first{border-top:1px solid ${RULE};margin-top:3px;padding-top:3px}
+.sd-axis{color:${MUTED};font-size:11px}
+.sd-hours{display:grid;grid-template-columns:repeat(8,1fr)}
+.sd-st{white-space:nowrap;overflow:hidden;text-overflow:ellipsis}.sd-day{color:${MUTED};font-variant-numeric:tabular-nums}
+.sd-sum{text-align:right;font-variant-numeric:tabular-nums;color:${MUTED}}
+svg.sd-track{height:12px;background:${PAPER} repeating-linear-gradient(to right,${RULE} 0 1px,transparent 1px 12.5%)}
+.sd-busy{fill:${ACCENT}}
+table.contacts tbody.group tr.group-head th{background:${PAPER};text-align:left;color:${INK};font-weight:600;border-top:8px solid ${SURFACE}}
+table.contacts tr.groups th{border-bottom:1px solid ${RULE};color:${ACCENT};text-transform:uppercase;font-size:11px;letter-spacing:.08em}
+th.geo,td.geo{border-left:2px solid ${RULE}}
+table.contacts td:nth-child(n+7){color:${MUTED}}
+.passes{display:grid;gap:16px}
+.pass-view{border-top:1px solid ${GRID};padding-top:8px}
+.pass-body{display:grid;grid-template-columns:250px minmax(0,640px);gap:24px;align-items:start}
+svg.sky{max-width:250px}
+.sky-rim{fill:${SURFACE};stroke:${RULE}}
+.sky-mask{fill:${ACCENT_SOFT};fill-opacity:.45;stroke:${ACCENT};stroke-width:.8}
+.sky-track{fill:none;stroke:${INK};stroke-width:1}
+.sky-pt{fill:${SURFACE};stroke:${INK};stroke-width:.6}.sky-pt.data{fill:${ACCENT};stroke:${ACCENT}}
+.margin-line{fill:none;stroke:${ACCENT};stroke-width:1.6}
+.mc0{fill:${ACCENT}}.mc1{fill:${ACCENT_SOFT}}.mc2{fill:#5f8a80}.mc3{fill:#c9d6d2}.mc-none{fill:${WARN};fill-opacity:.5}
+svg text.mc-lbl{fill:${SURFACE};font-size:10px;font-weight:600}
+ul.pass-notes{margin:6px 0 0;padding-left:18px;font-size:13px}
+p.bound{color:${INK};border-left:4px solid ${ACCENT};padding-left:8px}
 ${hues}
 `;
 }

@@ -90,7 +90,7 @@ describe('CCSDS 131.0-B / 130.1-G code thresholds (test/reference/modcod/ccsds_t
 
   it('looks codes up by name (case-insensitive)', () => {
     expect(ccsdsCode('conv k7 r1/2 ber 1e-5')?.ebN0ThresholdDb).toBe(4.2);
-    expect(ccsdsCode('RS+conv BER 1e-6 (EMWIN-N)')?.ebN0ThresholdDb).toBe(2.6);
+    expect(ccsdsCode('RS(255,223)+conv r1/2 BER 1e-6')?.ebN0ThresholdDb).toBe(2.6);
     expect(ccsdsCode('no such code')).toBeUndefined();
   });
 });
