@@ -89,6 +89,27 @@ describe('single thread, worker threads, shards + merge', () => {
     expect(dist(['plan', ...flags, '--shard', '3/2', '--no-write']).err).toMatch(/^error: --shard: "3\/2" must be K\/N/);
   }, 60_000);
 
+  it('plan --booking and merge --booking of the shards write byte-identical outputs (demo day: Sun outage, booking files)', () => {
+    if (!existsSync(distMain)) throw new Error('build first: npm run build');
+    const work = mkdtempSync(join(tmpdir(), 'pb-shard-booking-'));
+    const span = ['--from', '2026-03-05T00:00:00Z', '--days', '1'];
+    const booking = ['--booking', join(root, 'stations', 'demo-booking.yaml')];
+    const single = join(work, 'single');
+    expect(dist(['plan', ...span, ...booking, '--out', single, '--format', 'csv']).code).toBe(0);
+    const shardDirs = [1, 2].map((k) => join(work, `shard-${k}`));
+    shardDirs.forEach((d, i) => expect(dist(['plan', ...span, '--shard', `${i + 1}/2`, '--out', d]).code).toBe(0));
+    expect(dist(['plan', ...span, ...booking, '--shard', '1/2', '--out', join(work, 'refused')]).code).toBe(2);
+    const merged = join(work, 'merged');
+    const m = dist(['merge', ...shardDirs, ...span, ...booking, '--out', merged, '--format', 'csv']);
+    expect(m.code, m.err).toBe(0);
+    const a = listing(single);
+    for (const f of ['booking.csv', 'requirements.csv', 'sun-outages.csv']) expect([...a.keys()]).toContain(f);
+    expect(a.get('sun-outages.csv')!.toString('utf8').trim().split('\n').length).toBeGreaterThan(1);
+    const b = listing(merged);
+    expect([...b.keys()].sort()).toEqual([...a.keys()].sort());
+    for (const [name, bytes] of a) expect(b.get(name)!.equals(bytes), `${name} differs`).toBe(true);
+  }, 120_000);
+
   it('assigns shards by FNV-1a of the id (reference values of the FNV test suite)', () => {
     // FNV-1a 32-bit reference hashes (Fowler/Noll/Vo test vectors): "" and "a", "foobar"
     expect(fnv1a32('')).toBe(0x811c9dc5);
