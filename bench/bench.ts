@@ -153,6 +153,14 @@ export function geometryBenchmark(spacecraft = 200, stations = 20, days = 7, bru
 }
 
 async function main(): Promise<void> {
+  const { cliBenchmark } = await import('./cli-bench.js');
+  const args = process.argv.slice(2);
+  // `npm run bench -- --cli [sizes...] [--28d]`: only the whole-program figures
+  if (args[0] === '--cli') {
+    const sizes = args.slice(1).filter((a) => /^\d+$/.test(a)).map(Number);
+    cliBenchmark(sizes.length > 0 ? sizes : [200, 1000], 20, 7, args.includes('--28d'));
+    return;
+  }
   const { demoBenchmark, linkBenchmark } = await import('./link-bench.js');
   const { benchTrace } = await import('./trace-bench.js');
   // Trace first: peak RSS is per process, so it is measured before the big runs below.
@@ -165,6 +173,7 @@ async function main(): Promise<void> {
   demoBenchmark();
   geometryBenchmark();
   await linkBenchmark();
+  cliBenchmark();
   const { bookingBenchmark } = await import('./booking-bench.js');
   await bookingBenchmark();
 }

@@ -13,3 +13,19 @@ export const processIo: CliIo = {
   isTty: Boolean(process.stderr.isTTY) && !process.env.CI,
   nowMs: () => Date.now(),
 };
+
+/** Characters gathered before one io.out call when printing a large output in pieces. */
+const OUT_CHUNK_CHARS = 1 << 20;
+
+/** Prints an output made in pieces, a large part at a time (never the whole text as one string). */
+export function outPieces(io: CliIo, pieces: Iterable<string>): void {
+  let buf = '';
+  for (const p of pieces) {
+    buf += p;
+    if (buf.length >= OUT_CHUNK_CHARS) {
+      io.out(buf);
+      buf = '';
+    }
+  }
+  if (buf.length > 0) io.out(buf);
+}

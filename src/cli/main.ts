@@ -35,10 +35,15 @@ export async function run(argv: string[], io: CliIo = processIo): Promise<number
         '  $ passbudget schema spacecraft         the field reference, as JSON Schema\n' +
         '  $ passbudget <command> --help          defaults and examples of each command\n',
     );
-  registerCommands(program, io, (code) => {
-    exitCode = code;
-  });
   try {
+    await registerCommands(
+      program,
+      io,
+      (code) => {
+        exitCode = code;
+      },
+      argv,
+    );
     await program.parseAsync(argv, { from: 'user' });
     return exitCode;
   } catch (err) {

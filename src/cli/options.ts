@@ -11,6 +11,7 @@ import { parseDurationS } from '../time/duration.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import type { CliIo } from './io.js';
 import { checkOutputDir } from '../report/outdir.js';
+import { MAX_SHARDS, type ShardSpec } from '../plan/shard.js';
 
 /**
  * A plain decimal number as a flag value: digits, an optional point and exponent
@@ -176,6 +177,17 @@ export function readGeometryOverrides(raw: GeometryOverrideFlags): {
   if (point !== undefined) out.pointingLossDb = point;
   if (extra !== undefined) out.extraLossDb = extra;
   return out;
+}
+
+/** "--shard K/N": shard K (1..N) of N (plan/shard.ts). */
+export function parseShardFlag(text: string): ShardSpec {
+  const m = /^(\d{1,5})\/(\d{1,5})$/.exec(text.trim());
+  const index = m ? Number(m[1]) : Number.NaN;
+  const count = m ? Number(m[2]) : Number.NaN;
+  if (!(count >= 1 && count <= MAX_SHARDS && index >= 1 && index <= count)) {
+    throw new UsageError(`--shard: ${JSON.stringify(text)} must be K/N with 1 <= K <= N <= ${MAX_SHARDS} (e.g. 3/8)`);
+  }
+  return { index, count };
 }
 
 /** Loads the scenario (every problem at once, ScenarioError) and prints its notes and warnings to stderr. */

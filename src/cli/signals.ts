@@ -13,7 +13,7 @@
  * these handlers promptly.
  */
 import { removeOpenTemps } from '../report/write.js';
-import { terminateWorkers } from '../plan/parallel.js';
+import { terminateWorkers } from '../plan/workers.js';
 
 export const EXIT_SIGINT = 130;
 export const EXIT_SIGTERM = 143;

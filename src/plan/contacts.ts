@@ -21,7 +21,7 @@ import { SkyBodies } from '../geometry/sky-bodies.js';
 import { DEFAULT_SEARCH, type SearchOptions, type Site, type Target } from '../geometry/types.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import { isoUtc } from '../time/format.js';
-import type { Contact } from './types.js';
+import type { Contact, WarningOrigin } from './types.js';
 
 export function makeTarget(sc: Spacecraft, span: Span): Target {
   const o = sc.orbit;
@@ -62,12 +62,15 @@ export function prepareGeometry(scenario: Scenario, span: Span): Geometry {
 export interface ContactSearch {
   contacts: Contact[];
   warnings: string[];
+  /** warningOrigins[i]: the spacecraft warnings[i] is about. */
+  warningOrigins: WarningOrigin[];
   propagations: number;
 }
 
 /** Every window of every spacecraft over every station, ordered by station then AOS. */
 export function findContacts(scenario: Scenario, geometry: Geometry, span: Span, search: SearchOptions = DEFAULT_SEARCH): ContactSearch {
   const warnings: string[] = [];
+  const warningOrigins: WarningOrigin[] = [];
   const contacts: Contact[] = [];
   let propagations = 0;
   for (const sc of scenario.spacecraft) {
@@ -75,7 +78,10 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
     if (!target) continue;
     if (sc.orbit.kind === 'elements') {
       const age = elementAgeWarning(sc.orbit.sets, span);
-      if (age) warnings.push(`${sc.id}: ${age}`);
+      if (age) {
+        warnings.push(`${sc.id}: ${age}`);
+        warningOrigins.push({ spacecraftId: sc.id });
+      }
     }
     if (sc.orbit.kind === 'lunarOrbit') {
       const e = sc.orbit.elements.epochMs;
@@ -102,6 +108,7 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
     if (conjunction) warnings.push(`${sc.id}: ${conjunction}`);
     if (target.failedAtMs !== undefined) {
       warnings.push(`${sc.id}: track ends at ${isoUtc(target.failedAtMs, 0)}: ${target.failureReason ?? 'SGP4 error'}; no contacts after it`);
+      warningOrigins.push({ spacecraftId: sc.id });
     }
   }
   // order: station (file order), AOS, spacecraft (file order); keys computed once
@@ -110,7 +117,7 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
   const keyed = contacts.map((c) => ({ c, st: order.get(c.stationId) ?? 0, sc: scOrder.get(c.spacecraftId) ?? 0 }));
   keyed.sort((a, b) => a.st - b.st || a.c.aosMs - b.c.aosMs || a.sc - b.sc);
   for (let i = 0; i < keyed.length; i++) contacts[i] = keyed[i]!.c;
-  return { contacts, warnings, propagations };
+  return { contacts, warnings, warningOrigins, propagations };
 }
 
 const ltState = new Float64Array(6);

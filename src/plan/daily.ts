@@ -22,7 +22,7 @@ import { DateTime } from 'luxon';
 import { ModelRangeError } from '../errors.js';
 import type { Span } from '../scenario/types.js';
 import { VOLUME_BIN_MS, type Contact, type PlanResult } from './types.js';
-import { uniqueBitsIn, uniqueVolumeOf, uniqueVolumes } from './unique-volume.js';
+import { uniqueBitsIn, uniqueVolumeOf, uniqueVolumes, type UniqueVolume } from './unique-volume.js';
 
 export type DayMode = { kind: 'utc' } | { kind: 'local' };
 
@@ -203,15 +203,26 @@ export function dailyTotals(plan: PlanResult, mode: DayMode): DailyRow[] {
  * counted once (unique-volume.ts), the station-sums beside them. With `delivered`
  * (spacecraft id -> bits that left its recorder) deliveredBits is set.
  */
-export function spacecraftTotals(plan: PlanResult, delivered?: ReadonlyMap<string, number>): SpacecraftTotal[] {
-  const unique = uniqueVolumes(
+export function spacecraftTotals(
+  plan: PlanResult,
+  delivered?: ReadonlyMap<string, number>,
+  unique: readonly UniqueVolume[] = uniqueVolumes(
     plan.spacecraft.map((s) => s.id),
     plan.contacts,
-  );
+  ),
+): SpacecraftTotal[] {
+  // each spacecraft's contacts, gathered in one pass (plan order kept)
+  const bySc = new Map<string, Contact[]>();
+  for (const c of plan.contacts) {
+    const l = bySc.get(c.spacecraftId);
+    if (l) l.push(c);
+    else bySc.set(c.spacecraftId, [c]);
+  }
   return unique.map((u) => {
+    const own = bySc.get(u.spacecraftId) ?? [];
     const t: SpacecraftTotal = {
       spacecraftId: u.spacecraftId,
-      contactCount: plan.contacts.reduce((n, c) => n + (c.spacecraftId === u.spacecraftId ? 1 : 0), 0),
+      contactCount: own.length,
       contactTimeS: u.contactTimeS,
       stationSumContactTimeS: u.stationSumContactTimeS,
       volumeBits: u.volumeBits,
@@ -221,7 +232,7 @@ export function spacecraftTotals(plan: PlanResult, delivered?: ReadonlyMap<strin
     };
     const d = delivered?.get(u.spacecraftId);
     if (d !== undefined) t.deliveredBits = d;
-    const mine = plan.contacts.filter((c) => c.spacecraftId === u.spacecraftId && c.otherLinks);
+    const mine = own.filter((c) => c.otherLinks);
     const radioIds = [...new Set(mine.flatMap((c) => c.otherLinks!.map((l) => l.radioId)))];
     if (radioIds.length > 0) {
       t.otherRadios = radioIds.map((radioId) => {
@@ -241,11 +252,14 @@ export function spacecraftTotals(plan: PlanResult, delivered?: ReadonlyMap<strin
  * Per UTC day over all stations: the unique volume of every spacecraft (bins by their
  * start, as the station rows), the station-sum beside it, and the contacts by AOS day.
  */
-export function allStationsDaily(plan: PlanResult, rows: readonly DailyRow[]): AllStationsDay[] {
-  const unique = uniqueVolumes(
+export function allStationsDaily(
+  plan: PlanResult,
+  rows: readonly DailyRow[],
+  unique: readonly UniqueVolume[] = uniqueVolumes(
     plan.spacecraft.map((s) => s.id),
     plan.contacts,
-  );
+  ),
+): AllStationsDay[] {
   return daysOfSpan(plan.span, 'UTC').map((d) => {
     let count = 0;
     let sum = 0;

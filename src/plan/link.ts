@@ -44,7 +44,7 @@ import type { LinkSettings, Radio, Scenario, Station } from '../scenario/types.j
 import type { Geometry } from './contacts.js';
 import { ModelRangeError } from '../errors.js';
 import { feedFor, stationThroughFeed } from '../scenario/feeds.js';
-import { VOLUME_BIN_MS, type Contact, type ContactLink } from './types.js';
+import { VOLUME_BIN_MS, type Contact, type ContactLink, type WarningOrigin } from './types.js';
 
 /** Frequency above which a missing rain climate is worth a warning, Hz. */
 export const RAIN_WARNING_ABOVE_HZ = 3e9;
@@ -61,6 +61,8 @@ export interface LinkSetup {
   /** The other radios' links: index r - 1 holds radios[r]'s, by `${spacecraftId}|${stationId}`. */
   otherLinks?: Map<string, PreparedLink>[];
   warnings: string[];
+  /** warningOrigins[i]: the station, spacecraft and radio index that raised warnings[i]. */
+  warningOrigins?: WarningOrigin[];
 }
 
 export const linkKey = (spacecraftId: string, stationId: string) => `${spacecraftId}|${stationId}`;
@@ -220,17 +222,31 @@ function exceedanceLevelsFor(
 export interface PrepareLinksOptions {
   /** Tabulate the expected volume's exceedance levels, so that contacts carry their expected volume (default true). */
   expectedVolume?: boolean;
+  /** Tables kept across calls (a worker's batches share them); default: new ones. */
+  cache?: LinkTableCache;
 }
 
+/**
+ * Tables a run builds once: the atmosphere depends on the station, frequency,
+ * polarisation and availability only, so spacecraft sharing a band share them.
+ */
+export interface LinkTableCache {
+  atmosphere: Map<string, AtmosphereTable>;
+  levels: Map<string, ExceedanceLevelsTable>;
+}
+
+export const newLinkTableCache = (): LinkTableCache => ({ atmosphere: new Map(), levels: new Map() });
+
+/** The prepared link of every radio of every spacecraft at every station. */
 export function prepareLinks(scenario: Scenario, geometry: Geometry, opts: PrepareLinksOptions = {}): LinkSetup {
   const links = new Map<string, PreparedLink>();
   const otherLinks: Map<string, PreparedLink>[] = [];
   const warnings: string[] = [];
+  const warningOrigins: WarningOrigin[] = [];
   const warnedRain = new Set<string>();
-  // The atmosphere depends on the station, frequency, polarisation and availability only:
-  // spacecraft sharing a band share its tables.
-  const tables = new Map<string, AtmosphereTable>();
-  const levels = opts.expectedVolume === false ? undefined : new Map<string, ExceedanceLevelsTable>();
+  const cache = opts.cache ?? newLinkTableCache();
+  const tables = cache.atmosphere;
+  const levels = opts.expectedVolume === false ? undefined : cache.levels;
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
     if (!station.receiver) return; // windows only (a notice of the scenario says so)
@@ -238,12 +254,14 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry, opts: Prepa
       sc.radios.forEach((radio, r) => {
         if (!radioHeardAt(station, radio)) {
           warnings.push(noFeedWarning(station, sc.id, radio));
+          warningOrigins.push({ stationId: station.id, spacecraftId: sc.id, radioIndex: r });
           return;
         }
         const input = atmosphereInputFor(station, radio, scenario.link);
         if (!rainModelled(input) && radio.frequencyHz > RAIN_WARNING_ABOVE_HZ && !warnedRain.has(station.id)) {
           warnedRain.add(station.id);
           warnings.push(`${station.id}: no rain climate (rainRate001MmH, rainHeightKm); the rain term is not modelled above ${RAIN_WARNING_ABOVE_HZ / 1e9} GHz`);
+          warningOrigins.push({ stationId: station.id, spacecraftId: sc.id, radioIndex: r });
         }
         const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station), tables, levels);
         if (r === 0) links.set(linkKey(sc.id, station.id), link);
@@ -254,7 +272,7 @@ export function prepareLinks(scenario: Scenario, geometry: Geometry, opts: Prepa
       });
     }
   });
-  return { links, ...(otherLinks.length > 0 ? { otherLinks } : {}), warnings };
+  return { links, ...(otherLinks.length > 0 ? { otherLinks } : {}), warnings, warningOrigins };
 }
 
 /**
@@ -669,7 +687,8 @@ export function integrateContacts(
     // grid index range covering all contacts of this spacecraft
     const t0 = geometry.span.startMs;
     let k = Math.ceil((accs[0]!.contact.aosMs - t0) / stepMs);
-    const lastLos = Math.max(...accs.map((a) => a.contact.losMs));
+    let lastLos = -Infinity;
+    for (const a of accs) lastLos = Math.max(lastLos, a.contact.losMs);
     const kEnd = Math.floor((lastLos - t0) / stepMs);
     for (; k <= kEnd + 1; k++) {
       const tMs = k <= kEnd ? t0 + k * stepMs : Infinity;

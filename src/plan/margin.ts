@@ -55,8 +55,9 @@ import { MOON_MEAN_RADIUS_KM } from '../geometry/targets/moon-ephemeris.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { LinkSettings, Scenario, Span, Station } from '../scenario/types.js';
 import { prepareGeometry } from './contacts.js';
-import { lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
-import type { PlanResult } from './types.js';
+import { linkKey, lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
+import type { Contact, PlanResult } from './types.js';
+import type { AtmosphereTable } from '../link/atmosphere/types.js';
 
 /** Sampling step of the largest-distance search, s (a LEO period is ~5,700 s). */
 export const MAX_RADIUS_SAMPLE_S = 60;
@@ -254,6 +255,15 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
   const rows: MarginRow[] = [];
   const look = newLook();
   const sample = newLinkSample();
+  // contacts of each pair, in plan order, gathered in one pass; atmosphere tables shared
+  const byPair = new Map<string, Contact[]>();
+  for (const c of plan.contacts) {
+    const key = linkKey(c.spacecraftId, c.stationId);
+    const list = byPair.get(key);
+    if (list) list.push(c);
+    else byPair.set(key, [c]);
+  }
+  const tables = new Map<string, AtmosphereTable>();
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
     const stationRadiusKm = Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]);
@@ -284,7 +294,7 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
         });
         continue;
       }
-      const contacts = plan.contacts.filter((c) => c.stationId === station.id && c.spacecraftId === sc.id);
+      const contacts = byPair.get(linkKey(sc.id, station.id)) ?? [];
       if (!radioHeardAt(station, radio)) {
         rows.push({
           station: station.id,
@@ -310,7 +320,7 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
       if (target && contacts.length > 0 && contacts.every((c) => c.aosClipped && c.losClipped)) {
         elevationDeg = Math.max(maskCheckDeg, lowestElevationDeg(target, site, plan.span, look));
       }
-      const link = prepareRadioAtStation(radio, station, site, scenario.link, USABLE_FLOOR_DEG);
+      const link = prepareRadioAtStation(radio, station, site, scenario.link, USABLE_FLOOR_DEG, tables);
       const lunar = sc.orbit.kind === 'moon' || sc.orbit.kind === 'lunarSite' || sc.orbit.kind === 'lunarOrbit';
       const maskMarginDb = marginAtElevation(link, stationRadiusKm, far.radiusKm, elevationDeg, look, sample, lunar);
       let worstSeen: number | null = null;

@@ -1,39 +1,51 @@
 /**
- * The plan pipeline spread over worker threads, one group of spacecraft per thread
- * (work is independent per spacecraft: DESIGN "Scaling"). The merged result is the
- * same as runPlan's: contacts in the same order (station, AOS, spacecraft), warnings
- * deduplicated in the order runPlan gives them, stats summed.
+ * The plan pipeline spread over worker threads (work is independent per spacecraft:
+ * DESIGN "Scaling"). The fleet is cut into batches of consecutive spacecraft, handed out
+ * to the workers as they come free (a pool sized to the machine), each batch's result
+ * sent back as soon as it is done; the merged result is the same as runPlan's: contacts
+ * in the same order (station, AOS, spacecraft), warnings deduplicated in the order runPlan
+ * gives them (batches merged in fleet order), stats summed.
  * Threads are used only from the compiled program (a worker needs a .js file), one
  * per MIN_SPACECRAFT_PER_THREAD spacecraft; from the compiled program even a
- * small fleet runs on one worker, so the main thread stays free to act on a
- * signal (Ctrl-C stops the run at once: src/cli/signals.ts). Errors come back
- * as data and are re-raised as their class (ScenarioError, ModelRangeError ...).
+ * small fleet runs on one worker (except a few spacecraft without radios: inlineWorthy),
+ * so the main thread stays free to act on a signal (Ctrl-C stops the run at once:
+ * src/cli/signals.ts). Errors come back as data and are re-raised as their class (ScenarioError, ModelRangeError ...).
  * Elsewhere (tests on the sources) this is runPlan.
  */
 import { Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { runPlan, planResult, sortOutages, type PlanOptions } from './run.js';
-import type { Scenario, Span } from '../scenario/types.js';
-import type { PlanResult } from './types.js';
+import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
+import type { PlanResult, WarningOrigin } from './types.js';
 import { reviveError, type SerializedError } from '../errors.js';
+import { runningWorkers, terminateWorkers } from './workers.js';
 
-/** What a plan worker posts back: its result, or its error as data. */
-export type WorkerReply = { ok: true; result: PlanResult } | { ok: false; error: SerializedError };
-
-/** Workers running now (terminated together when one fails). */
-const running = new Set<Worker>();
-
-/** Stops every plan worker still running (a failed group, or an interrupted run). */
-export function terminateWorkers(): void {
-  for (const w of running) void w.terminate();
-  running.clear();
+/** A batch of spacecraft sent to a worker. */
+export interface BatchJob {
+  batch: number;
+  spacecraft: Spacecraft[];
 }
 
+/** What a plan worker posts back for a batch: its result, or its error as data. */
+export type WorkerReply = { ok: true; batch: number; result: PlanResult } | { ok: false; error: SerializedError };
+
 export const MIN_SPACECRAFT_PER_THREAD = 4;
+/** Most spacecraft in one batch (bounds what a worker holds and sends at once). */
+export const MAX_BATCH_SPACECRAFT = 16;
 
 /** Threads worth starting for this many spacecraft on this machine. */
 export function threadsFor(spacecraftCount: number, maxThreads = availableParallelism()): number {
   return Math.max(1, Math.min(maxThreads, Math.floor(spacecraftCount / MIN_SPACECRAFT_PER_THREAD)));
+}
+
+/**
+ * A few spacecraft without radios (geometry only) take less time to plan than a worker
+ * takes to start: they run on the main thread (a signal is acted on right after).
+ */
+export const INLINE_MAX_SPACECRAFT = 8;
+
+export function inlineWorthy(scenario: Scenario): boolean {
+  return scenario.spacecraft.length <= INLINE_MAX_SPACECRAFT && scenario.spacecraft.every((s) => s.radios.length === 0);
 }
 
 function workerUrl(): URL | undefined {
@@ -44,43 +56,84 @@ function workerUrl(): URL | undefined {
 export async function runPlanParallel(scenario: Scenario, span: Span, opts: PlanOptions = {}, maxThreads?: number): Promise<PlanResult> {
   const threads = threadsFor(scenario.spacecraft.length, maxThreads);
   const url = workerUrl();
-  if (url === undefined) return runPlan(scenario, span, opts);
+  if (url === undefined || inlineWorthy(scenario)) return runPlan(scenario, span, opts);
   const { onProgress, ...plain } = opts;
-  const groups: Scenario[] = [];
-  for (let g = 0; g < threads; g++) {
-    groups.push({ ...scenario, spacecraft: scenario.spacecraft.filter((_, i) => i % threads === g) });
-  }
+  // batches small enough to spread evenly (several per thread), at most MAX_BATCH_SPACECRAFT
+  const size = Math.max(1, Math.min(MAX_BATCH_SPACECRAFT, Math.ceil(scenario.spacecraft.length / (4 * threads))));
+  const batches: Spacecraft[][] = [];
+  for (let i = 0; i < scenario.spacecraft.length; i += size) batches.push(scenario.spacecraft.slice(i, i + size));
+  if (batches.length === 0) batches.push([]);
+  const parts: PlanResult[] = new Array<PlanResult>(batches.length);
+  let next = 0;
   let done = 0;
-  onProgress?.(0, threads, 'threads');
-  let parts: PlanResult[];
+  onProgress?.(0, batches.length, 'batches');
+  const base: Scenario = { ...scenario, spacecraft: [] };
+  const ids = new Map<string, string>();
+  for (const x of [...scenario.spacecraft, ...scenario.stations]) ids.set(x.id, x.id);
+  for (const sc of scenario.spacecraft) for (const r of sc.radios) ids.set(r.id, r.id);
   try {
-    parts = await Promise.all(
-      groups.map(
-        (group) =>
-          new Promise<PlanResult>((resolve, reject) => {
-            const w = new Worker(url, { workerData: { scenario: group, span, opts: plain } });
-            running.add(w);
-            w.once('message', (r: WorkerReply) => {
-              if (!r.ok) {
-                reject(reviveError(r.error));
-                return;
-              }
-              onProgress?.(++done, threads, 'threads');
-              resolve(r.result);
-            });
-            w.once('error', reject);
-            w.once('exit', (code) => {
-              running.delete(w);
-              if (code !== 0) reject(new Error(`plan worker exited with code ${code}`));
-            });
-          }),
-      ),
-    );
+    await new Promise<void>((resolve, reject) => {
+      let failed = false;
+      const fail = (err: unknown): void => {
+        if (failed) return;
+        failed = true;
+        reject(err);
+      };
+      const workers = Math.min(threads, batches.length);
+      for (let t = 0; t < workers; t++) {
+        const w = new Worker(url, { workerData: { scenario: base, span, opts: plain } });
+        runningWorkers.add(w);
+        let retired = false;
+        const feed = (): void => {
+          if (next < batches.length) {
+            const job: BatchJob = { batch: next, spacecraft: batches[next]! };
+            next++;
+            w.postMessage(job);
+          } else {
+            retired = true; // nothing left to hand out
+            runningWorkers.delete(w);
+            void w.terminate();
+          }
+        };
+        w.on('message', (r: WorkerReply) => {
+          if (!r.ok) {
+            fail(reviveError(r.error));
+            return;
+          }
+          parts[r.batch] = withSharedIds(r.result, ids);
+          done++; // not inside onProgress?.(...): its arguments are skipped without a hook
+          onProgress?.(done, batches.length, 'batches');
+          if (done === batches.length) resolve();
+          feed();
+        });
+        w.once('error', fail);
+        w.once('exit', (code) => {
+          runningWorkers.delete(w);
+          if (!retired) fail(new Error(`plan worker exited with code ${code} before its work was done`));
+        });
+        feed();
+      }
+    });
   } catch (err) {
-    terminateWorkers(); // the first error wins; the other groups' work is moot
+    terminateWorkers(); // the first error wins; the other batches' work is moot
     throw err;
   }
   return mergePlans(scenario, span, parts);
+}
+
+/**
+ * The result with its ids pointing at the scenario's own strings: a result that crossed
+ * threads carries a copy of every id in every contact, a million copies for a large fleet.
+ */
+function withSharedIds(result: PlanResult, ids: ReadonlyMap<string, string>): PlanResult {
+  const shared = (id: string): string => ids.get(id) ?? id;
+  for (const c of result.contacts) {
+    c.spacecraftId = shared(c.spacecraftId);
+    c.stationId = shared(c.stationId);
+    if (c.link) c.link.radioId = shared(c.link.radioId);
+    for (const l of c.otherLinks ?? []) l.radioId = shared(l.radioId);
+  }
+  return result;
 }
 
 /** Merges per-group results into the single-thread order. */
@@ -94,23 +147,48 @@ export function mergePlans(scenario: Scenario, span: Span, parts: PlanResult[]):
       a.aosMs - b.aosMs ||
       (scOrder.get(a.spacecraftId) ?? 0) - (scOrder.get(b.spacecraftId) ?? 0),
   );
-  // runPlan's order: per-spacecraft warnings (spacecraft order), then link warnings (station order)
-  const scWarn: string[][] = scenario.spacecraft.map(() => []);
-  const other: string[] = [];
-  for (const p of parts) {
-    for (const w of p.warnings) {
-      const k = scOrder.get(w.slice(0, w.indexOf(':')));
-      if (k !== undefined) scWarn[k]!.push(w);
-      else if (!other.includes(w)) other.push(w);
-    }
-  }
-  other.sort((a, b) => (stationOrder.get(a.slice(0, a.indexOf(':'))) ?? 0) - (stationOrder.get(b.slice(0, b.indexOf(':'))) ?? 0));
+  const { warnings, origins } = mergeWarnings(scenario, parts);
   const stats = { propagations: 0, linkSamples: 0 };
   for (const p of parts) {
     stats.propagations += p.stats.propagations;
     stats.linkSamples += p.stats.linkSamples;
   }
-  const merged = planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, [...scWarn.flat(), ...other], stats);
+  const merged = planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, warnings, stats, origins);
   if (parts.some((p) => p.sunOutages)) merged.sunOutages = sortOutages(scenario, parts.flatMap((p) => p.sunOutages ?? []));
   return merged;
+}
+
+/**
+ * The parts' warnings in runPlan's order, each said once: the search's (by spacecraft,
+ * in fleet order), then the link set-up's (by station, then spacecraft, then radio: a
+ * warning raised in several parts, such as a station's missing rain climate, stands where
+ * its earliest origin puts it). Parts without origins (none of ours) fall back to the
+ * id before the first ":" of the text.
+ */
+function mergeWarnings(scenario: Scenario, parts: readonly PlanResult[]): { warnings: string[]; origins: WarningOrigin[] } {
+  const stationOrder = new Map(scenario.stations.map((s, i) => [s.id, i]));
+  const scOrder = new Map(scenario.spacecraft.map((s, i) => [s.id, i]));
+  const all: { text: string; origin: WarningOrigin; key: [number, number, number, number] }[] = [];
+  for (const p of parts) {
+    p.warnings.forEach((text, i) => {
+      const prefix = text.slice(0, text.indexOf(':'));
+      const origin: WarningOrigin = p.warningOrigins?.[i] ?? (scOrder.has(prefix) ? { spacecraftId: prefix } : { stationId: prefix });
+      const sc = origin.spacecraftId !== undefined ? (scOrder.get(origin.spacecraftId) ?? 0) : 0;
+      const key: [number, number, number, number] =
+        origin.stationId === undefined ? [0, sc, 0, 0] : [1, stationOrder.get(origin.stationId) ?? 0, sc, origin.radioIndex ?? 0];
+      all.push({ text, origin, key });
+    });
+  }
+  // a stable sort: one origin's warnings keep the order their part gave them
+  all.sort((a, b) => a.key[0] - b.key[0] || a.key[1] - b.key[1] || a.key[2] - b.key[2] || a.key[3] - b.key[3]);
+  const seen = new Set<string>();
+  const warnings: string[] = [];
+  const origins: WarningOrigin[] = [];
+  for (const w of all) {
+    if (seen.has(w.text)) continue;
+    seen.add(w.text);
+    warnings.push(w.text);
+    origins.push(w.origin);
+  }
+  return { warnings, origins };
 }

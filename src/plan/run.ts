@@ -5,7 +5,7 @@
 import { DEFAULT_SEARCH, type SearchOptions } from '../geometry/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
 import { prepareGeometry, findContacts } from './contacts.js';
-import { prepareLinks, integrateContacts, integrateOtherRadios, DEFAULT_LINK_STEP_S } from './link.js';
+import { prepareLinks, type LinkTableCache, integrateContacts, integrateOtherRadios, DEFAULT_LINK_STEP_S } from './link.js';
 import type { PlanResult, SunOutage } from './types.js';
 import { findSunOutages } from './sun-outages.js';
 
@@ -20,20 +20,23 @@ export interface PlanOptions {
   onProgress?: (done: number, total: number, label: string) => void;
 }
 
-export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}): PlanResult {
+/** `cache`: link tables kept across calls (a worker's batches of one run share them). */
+export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, cache?: LinkTableCache): PlanResult {
   const geometry = prepareGeometry(scenario, span);
   const total = opts.geometryOnly ? 1 : 2;
   opts.onProgress?.(0, total, 'contact search');
   const found = findContacts(scenario, geometry, span, opts.search ?? DEFAULT_SEARCH);
   opts.onProgress?.(1, total, opts.geometryOnly ? 'done' : 'link budgets');
   const warnings = [...found.warnings];
+  const origins = [...found.warningOrigins];
   let linkSamples = 0;
   let propagations = found.propagations;
   let sunOutages: SunOutage[] | undefined;
   const linkStepS = opts.linkStepS ?? DEFAULT_LINK_STEP_S;
   if (!opts.geometryOnly) {
-    const setup = prepareLinks(scenario, geometry, opts.expectedVolume === false ? { expectedVolume: false } : {});
-    warnings.push(...setup.warnings);
+    const setup = prepareLinks(scenario, geometry, { ...(opts.expectedVolume === false ? { expectedVolume: false } : {}), ...(cache ? { cache } : {}) });
+    for (const w of setup.warnings) warnings.push(w);
+    for (const o of setup.warningOrigins ?? []) origins.push(o);
     const stats = integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);
     const other = integrateOtherRadios(found.contacts, geometry, setup, scenario.link, linkStepS);
     linkSamples = stats.linkSamples + other.linkSamples;
@@ -41,7 +44,7 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}):
     sunOutages = sortOutages(scenario, findSunOutages(found.contacts, geometry, setup));
     opts.onProgress?.(2, total, 'done');
   }
-  const result = planResult(scenario, span, linkStepS, found.contacts, warnings, { propagations, linkSamples });
+  const result = planResult(scenario, span, linkStepS, found.contacts, warnings, { propagations, linkSamples }, origins);
   if (sunOutages) result.sunOutages = sunOutages;
   return result;
 }
@@ -54,6 +57,7 @@ export function planResult(
   contacts: PlanResult['contacts'],
   warnings: string[],
   stats: PlanResult['stats'],
+  warningOrigins?: PlanResult['warningOrigins'],
 ): PlanResult {
   return {
     span,
@@ -63,6 +67,7 @@ export function planResult(
     stations: scenario.stations.map((s) => ({ id: s.id, name: s.name, timeZone: s.timeZone })),
     contacts,
     warnings,
+    ...(warningOrigins && warningOrigins.length === warnings.length ? { warningOrigins } : {}),
     stats,
   };
 }

@@ -86,7 +86,23 @@ export interface PlanResult {
   /** All contacts, ordered by station (file order) then AOS. */
   contacts: Contact[];
   warnings: string[];
+  /**
+   * Where each warning comes from, as data (warningOrigins[i] belongs to warnings[i]): the
+   * merge of worker batches and shards puts the warnings back in runPlan's order by it.
+   */
+  warningOrigins?: WarningOrigin[];
   stats: { propagations: number; linkSamples: number };
   /** Sun outages, ordered by station (file order) then start; absent for a geometry-only plan. */
   sunOutages?: SunOutage[];
+}
+
+/**
+ * The origin of a warning: the contact search's (a spacecraft's element sets or track:
+ * spacecraftId only) or the link set-up's (a station, with the spacecraft and radio index
+ * that raised it).
+ */
+export interface WarningOrigin {
+  spacecraftId?: string;
+  stationId?: string;
+  radioIndex?: number;
 }

@@ -39,8 +39,16 @@ function utf8Octets(codePoint: number): number {
   return 4;
 }
 
+const ASCII = /^[\x00-\x7f]*$/;
+
 /** RFC 5545 §3.1 folding: lines of at most 75 octets, continuations start with a space. */
 export function foldLine(line: string): string {
+  if (line.length <= MAX_LINE_OCTETS && ASCII.test(line)) return line; // one octet per character
+  if (ASCII.test(line)) {
+    const pieces = [line.slice(0, MAX_LINE_OCTETS)];
+    for (let at = MAX_LINE_OCTETS; at < line.length; at += MAX_LINE_OCTETS - 1) pieces.push(line.slice(at, at + MAX_LINE_OCTETS - 1));
+    return pieces.join(`${CRLF} `);
+  }
   const pieces: string[] = [];
   let current = '';
   let octets = 0;
@@ -68,25 +76,38 @@ export function icalUtc(tMs: number, round: 'floor' | 'ceil'): string {
 
 const uidPart = (s: string) => s.replace(/[^A-Za-z0-9._-]/g, '_');
 
-/** Stable UIDs for every contact of the plan, in plan order (Map keyed by the contact object). */
-export function contactUids(plan: PlanResult): Map<Contact, string> {
-  const uids = new Map<Contact, string>();
+/** Stable UIDs of the plan's contacts, in plan order (index i: plan.contacts[i]). */
+export function contactUids(plan: PlanResult): string[] {
+  const uids: string[] = [];
   const used = new Set<string>();
   for (const c of plan.contacts) {
     const base = `${uidPart(c.stationId)}-${uidPart(c.spacecraftId)}-${icalUtc(c.aosMs, 'floor')}`;
     let uid = `${base}@passbudget`;
     for (let k = 2; used.has(uid); k++) uid = `${base}-${k}@passbudget`;
     used.add(uid);
-    uids.set(c, uid);
+    uids.push(uid);
   }
   return uids;
 }
 
-function eventLines(plan: PlanResult, c: Contact, uid: string): string[] {
-  const sc = plan.spacecraft.find((s) => s.id === c.spacecraftId);
-  const st = plan.stations.find((s) => s.id === c.stationId);
-  const scName = sc?.name ?? c.spacecraftId;
-  const stName = st?.name ?? c.stationId;
+/** Names by id and the DTSTAMP line, looked up once per calendar. */
+interface EventContext {
+  scName: Map<string, string>;
+  stName: Map<string, string>;
+  dtstamp: string;
+}
+
+function eventContext(plan: PlanResult): EventContext {
+  return {
+    scName: new Map(plan.spacecraft.map((s) => [s.id, s.name])),
+    stName: new Map(plan.stations.map((s) => [s.id, s.name])),
+    dtstamp: `DTSTAMP:${icalUtc(plan.span.startMs, 'floor')}`,
+  };
+}
+
+function eventText(ctx: EventContext, c: Contact, uid: string): string {
+  const scName = ctx.scName.get(c.spacecraftId) ?? c.spacecraftId;
+  const stName = ctx.stName.get(c.stationId) ?? c.stationId;
   const desc = [
     `${scName} over ${stName} (${c.stationId}).`,
     `AOS ${isoUtc(c.aosMs, 1)}${c.aosClipped ? ' (window cut by the start of the span)' : ''}`,
@@ -102,10 +123,10 @@ function eventLines(plan: PlanResult, c: Contact, uid: string): string[] {
       `Worst margin ${c.link.worstMarginDb.toFixed(1)} dB at ${c.link.worstMarginElevationDeg.toFixed(1)} deg elevation`,
     );
   }
-  return [
+  const lines = [
     'BEGIN:VEVENT',
     `UID:${uid}`,
-    `DTSTAMP:${icalUtc(plan.span.startMs, 'floor')}`,
+    ctx.dtstamp,
     `DTSTART:${icalUtc(c.aosMs, 'floor')}`,
     `DTEND:${icalUtc(c.losMs, 'ceil')}`,
     `SUMMARY:${escapeText(`${c.spacecraftId} over ${c.stationId}${c.link ? ` (${formatBits(c.link.volumeBits)})` : ''}`)}`,
@@ -114,34 +135,65 @@ function eventLines(plan: PlanResult, c: Contact, uid: string): string[] {
     'TRANSP:OPAQUE',
     'END:VEVENT',
   ];
+  let text = '';
+  for (const l of lines) text += foldLine(l) + CRLF;
+  return text;
+}
+
+/**
+ * One calendar in pieces (one per event) of the plan's contacts at `indices` (into
+ * plan.contacts), taken in the order given: by AOS, then plan order.
+ */
+function* calendarPieces(plan: PlanResult, indices: Iterable<number>, name: string, uids: readonly string[]): Generator<string> {
+  const head = ['BEGIN:VCALENDAR', 'VERSION:2.0', `PRODID:${PRODID}`, 'CALSCALE:GREGORIAN', 'METHOD:PUBLISH', `NAME:${escapeText(name)}`, `X-WR-CALNAME:${escapeText(name)}`];
+  yield head.map(foldLine).join(CRLF) + CRLF;
+  const ctx = eventContext(plan);
+  for (const i of indices) yield eventText(ctx, plan.contacts[i]!, uids[i]!);
+  yield 'END:VCALENDAR' + CRLF;
+}
+
+/** Indices of the plan's contacts ordered by AOS, then plan order. */
+function byAos(plan: PlanResult, indices: number[]): number[] {
+  const c = plan.contacts;
+  return indices.sort((a, b) => c[a]!.aosMs - c[b]!.aosMs || a - b);
 }
 
 /** One calendar of the given contacts (ordered by AOS, then station, then spacecraft as in the plan). */
 export function renderCalendar(plan: PlanResult, contacts: readonly Contact[], name: string, uids = contactUids(plan)): string {
-  const order = new Map(plan.contacts.map((c, i) => [c, i]));
-  const sorted = [...contacts].sort((a, b) => a.aosMs - b.aosMs || (order.get(a) ?? 0) - (order.get(b) ?? 0));
-  const lines = ['BEGIN:VCALENDAR', 'VERSION:2.0', `PRODID:${PRODID}`, 'CALSCALE:GREGORIAN', 'METHOD:PUBLISH'];
-  lines.push(`NAME:${escapeText(name)}`, `X-WR-CALNAME:${escapeText(name)}`);
-  for (const c of sorted) {
-    const uid = uids.get(c);
-    if (uid === undefined) throw new Error('renderCalendar: contact is not part of the plan');
-    lines.push(...eventLines(plan, c, uid));
-  }
-  lines.push('END:VCALENDAR');
-  return lines.map(foldLine).join(CRLF) + CRLF;
+  const index = new Map(plan.contacts.map((c, i) => [c, i]));
+  const indices = contacts.map((c) => {
+    const i = index.get(c);
+    if (i === undefined) throw new Error('renderCalendar: contact is not part of the plan');
+    return i;
+  });
+  return [...calendarPieces(plan, byAos(plan, indices), name, uids)].join('');
 }
 
 /** File-name-safe form of a station id. */
 export const stationFileName = (stationId: string) => `${uidPart(stationId)}.ics`;
 
-/** The network calendar and one per station: paths relative to the output folder. */
-export function renderCalendars(plan: PlanResult): { name: string; content: string }[] {
+/**
+ * The network calendar and one per station, paths relative to the output folder, each
+ * made in pieces while it is written.
+ */
+export function calendarFiles(plan: PlanResult): { name: string; content: Iterable<string> }[] {
   const uids = contactUids(plan);
   const span = `${isoUtc(plan.span.startMs, 0)} .. ${isoUtc(plan.span.endMs, 0)}`;
-  const files = [{ name: 'contacts.ics', content: renderCalendar(plan, plan.contacts, `Contacts, all stations, ${span}`, uids) }];
+  const all = byAos(
+    plan,
+    plan.contacts.map((_, i) => i),
+  );
+  const files = [{ name: 'contacts.ics', content: calendarPieces(plan, all, `Contacts, all stations, ${span}`, uids) }];
+  const perStation = new Map<string, number[]>(plan.stations.map((st) => [st.id, []]));
+  plan.contacts.forEach((c, i) => perStation.get(c.stationId)?.push(i));
   for (const st of plan.stations) {
-    const mine = plan.contacts.filter((c) => c.stationId === st.id);
-    files.push({ name: `calendar/${stationFileName(st.id)}`, content: renderCalendar(plan, mine, `Contacts at ${st.name} (${st.id}), ${span}`, uids) });
+    const mine = byAos(plan, perStation.get(st.id) ?? []);
+    files.push({ name: `calendar/${stationFileName(st.id)}`, content: calendarPieces(plan, mine, `Contacts at ${st.name} (${st.id}), ${span}`, uids) });
   }
   return files;
+}
+
+/** The calendars as whole strings (calendarFiles made in one piece each). */
+export function renderCalendars(plan: PlanResult): { name: string; content: string }[] {
+  return calendarFiles(plan).map((f) => ({ name: f.name, content: [...f.content].join('') }));
 }

@@ -10,6 +10,7 @@ import { SUN_OUTAGE_BEAMWIDTHS } from '../geometry/sun-outage.js';
 import { isoUtc, isoInZone, formatDuration } from '../time/format.js';
 import { renderTable, fixed, formatBits, type Column } from './table.js';
 import { uniqueVolumes } from '../plan/unique-volume.js';
+import { jsonLinesPieces, jsonPieces, LazyList } from './json-stream.js';
 
 const round = (v: number, d: number) => (Number.isFinite(v) ? Number(v.toFixed(d)) : null);
 
@@ -37,20 +38,20 @@ function mostTimeIn(timeInModcodS: Record<string, number>): string {
   return best;
 }
 
-export function renderPlanTable(plan: PlanResult, zone?: string): string {
-  const parts: string[] = [];
+/** The terminal table in pieces, one station's table at a time (each piece ends its line). */
+export function* planTablePieces(plan: PlanResult, zone?: string): Generator<string> {
   const hasLink = plan.contacts.some((c) => c.link !== undefined);
   const hasExpected = plan.contacts.some((c) => c.link?.expectedVolumeBits !== undefined);
-  parts.push(
+  yield* lines(
     `Contact plan ${isoUtc(plan.span.startMs, 0)} .. ${isoUtc(plan.span.endMs, 0)}` +
       (hasLink ? `, link at ${plan.availabilityPercent} % availability, sampled every ${plan.linkStepS} s` : ''),
   );
   for (const st of plan.stations) {
     const rows = plan.contacts.filter((c) => c.stationId === st.id);
-    parts.push('');
-    parts.push(`${st.id}  ${st.name}  (${st.timeZone})`);
+    yield* lines('');
+    yield* lines(`${st.id}  ${st.name}  (${st.timeZone})`);
     if (rows.length === 0) {
-      parts.push('  no contacts in the window');
+      yield* lines('  no contacts in the window');
       continue;
     }
     // what the link gives first, then the geometry (TCA and azimuths: contacts.csv, plan.json)
@@ -88,31 +89,31 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
       );
       return r;
     });
-    parts.push(indent(renderTable(cols, body)));
-    parts.push(`  ${summaryLine(rows, hasLink, hasExpected)}`);
+    yield* lines(indent(renderTable(cols, body)));
+    yield* lines(`  ${summaryLine(rows, hasLink, hasExpected)}`);
   }
   const clipped = plan.contacts.some((c) => c.aosClipped || c.losClipped);
-  parts.push('');
-  parts.push(`All stations (station sum): ${summaryLine(plan.contacts, hasLink, hasExpected)}`);
+  yield* lines('');
+  yield* lines(`All stations (station sum): ${summaryLine(plan.contacts, hasLink, hasExpected)}`);
   const once = uniqueVolumes(
     plan.spacecraft.map((s) => s.id),
     plan.contacts,
   );
-  parts.push(
+  yield* lines(
     `Counted once per spacecraft radio (best station at each instant, union of windows): contact time ${formatDuration(once.reduce((s, u) => s + u.contactTimeS, 0))}` +
       (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : '') +
       (hasExpected ? `, expected ${formatBits(once.reduce((s, u) => s + u.expectedVolumeBits, 0))}` : ''),
   );
   if (hasExpected) {
-    parts.push(
+    yield* lines(
       `"volume": at ${plan.availabilityPercent} % availability (the atmosphere exceeded ${Number((100 - plan.availabilityPercent).toPrecision(12))} % of an average year); ` +
         '"expected": the mean over an average year\'s attenuation statistics (README, "Expected volume").',
     );
   }
-  if (clipped) parts.push('"<" / ">": window cut by the start / end of the span.');
+  if (clipped) yield* lines('"<" / ">": window cut by the start / end of the span.');
   const outages = plan.sunOutages ?? [];
-  parts.push('');
-  parts.push(`Sun outages (the Sun's limb within ${SUN_OUTAGE_BEAMWIDTHS} half-power beamwidth of boresight; their noise is in the volumes): ${outages.length === 0 ? 'none' : outages.length}`);
+  yield* lines('');
+  yield* lines(`Sun outages (the Sun's limb within ${SUN_OUTAGE_BEAMWIDTHS} half-power beamwidth of boresight; their noise is in the volumes): ${outages.length === 0 ? 'none' : outages.length}`);
   if (outages.length > 0) {
     const cols: Column[] = [
       { header: 'station' },
@@ -136,10 +137,11 @@ export function renderPlanTable(plan: PlanResult, zone?: string): string {
       fixed(o.beamwidthDeg, 3),
       fixed(o.peakSunNoiseK, 0),
     ]);
-    parts.push(indent(renderTable(cols, body)));
+    yield* lines(indent(renderTable(cols, body)));
   }
-  return parts.join('\n') + '\n';
 }
+
+const lines = (...text: string[]): string[] => text.map((l) => `${l}\n`);
 
 function summaryLine(rows: Contact[], hasLink: boolean, hasExpected: boolean): string {
   const totalS = rows.reduce((s, c) => s + c.durationS, 0);
@@ -231,34 +233,48 @@ export function contactRecord(c: Contact, forJson = false): Record<string, Cell>
   return rec;
 }
 
-export function renderPlanJson(plan: PlanResult, extra: Record<string, unknown> = {}): string {
+/** One contact as plan.json and contacts.jsonl hold it: its record, time per MODCOD and other radios. */
+export function contactJson(c: Contact): Record<string, unknown> {
+  return {
+    ...contactRecord(c, true),
+    // in JSON, the time per MODCOD as an object, in its column's place
+    ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
+    ...(c.otherLinks
+      ? {
+          other_radios: c.otherLinks.map((l) => ({
+            radio: l.radioId,
+            volume_bits: l.volumeBits,
+            ...(l.expectedVolumeBits !== undefined ? { expected_volume_bits: l.expectedVolumeBits } : {}),
+            closure_margin_db: round(l.worstMarginDb, 2),
+            peak_rate_bps: Math.round(l.peakRateBps),
+          })),
+        }
+      : {}),
+  };
+}
+
+/** The contacts of the plan, made one at a time while written. */
+export const contactList = (plan: PlanResult): LazyList<Record<string, unknown>> => new LazyList(plan.contacts.length, (i) => contactJson(plan.contacts[i]!));
+
+/** plan.json in pieces (report/json-stream.ts): the same bytes as one JSON.stringify of it. */
+export function planJsonPieces(plan: PlanResult, extra: Record<string, unknown> = {}): Iterable<string> {
   const doc = {
     span: { from_utc: isoUtc(plan.span.startMs, 3), to_utc: isoUtc(plan.span.endMs, 3) },
     availability_percent: plan.availabilityPercent,
     link_step_s: plan.linkStepS,
     spacecraft: plan.spacecraft,
     stations: plan.stations.map((st) => ({ id: st.id, name: st.name, time_zone: st.timeZone })),
-    contacts: plan.contacts.map((c) => ({
-      ...contactRecord(c, true),
-      // in JSON, the time per MODCOD as an object, in its column's place
-      ...(c.link ? { time_in_modcod_s: roundRecord(c.link.timeInModcodS, 1) } : {}),
-      ...(c.otherLinks
-        ? {
-            other_radios: c.otherLinks.map((l) => ({
-              radio: l.radioId,
-              volume_bits: l.volumeBits,
-              ...(l.expectedVolumeBits !== undefined ? { expected_volume_bits: l.expectedVolumeBits } : {}),
-              closure_margin_db: round(l.worstMarginDb, 2),
-              peak_rate_bps: Math.round(l.peakRateBps),
-            })),
-          }
-        : {}),
-    })),
+    contacts: contactList(plan),
     ...(plan.sunOutages ? { sun_outages: plan.sunOutages.map(sunOutageRecord) } : {}),
     ...extra,
     warnings: plan.warnings,
   };
-  return JSON.stringify(doc, null, 2) + '\n';
+  return jsonPieces(doc);
+}
+
+/** contacts.jsonl: one contact per line, the same record as in plan.json. */
+export function contactsJsonLinesPieces(plan: PlanResult): Iterable<string> {
+  return jsonLinesPieces(contactList(plan));
 }
 
 function roundRecord(r: Record<string, number>, d: number): Record<string, number | null> {
@@ -267,10 +283,28 @@ function roundRecord(r: Record<string, number>, d: number): Record<string, numbe
   return out;
 }
 
-export function renderPlanCsv(plan: PlanResult): string {
+/** A CSV field (RFC 4180): quoted when it holds a comma, a quote or a line break. */
+function csvField(v: Cell | undefined): string {
+  if (v === null || v === undefined) return '';
+  if (typeof v === 'boolean') return v ? 'true' : 'false';
+  if (typeof v === 'number') return String(v);
+  return /[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+}
+
+/** contacts.csv in pieces, row by row: the columns of CONTACT_COLUMNS some contact has, in its order. */
+export function* planCsvPieces(plan: PlanResult): Generator<string> {
   const hasLink = plan.contacts.some((c) => c.link !== undefined);
-  const columns = CONTACT_COLUMNS.filter((col) => !col.jsonOnly && (hasLink || !col.link) && (!col.when || plan.contacts.some(col.when))).map((col) => col.key);
-  return stringify(plan.contacts.map((c) => contactRecord(c)), { header: true, columns, cast: { boolean: (v) => (v ? 'true' : 'false') } });
+  const columns = CONTACT_COLUMNS.filter((col) => !col.jsonOnly && (hasLink || !col.link) && (!col.when || plan.contacts.some(col.when)));
+  yield `${columns.map((col) => col.key).join(',')}\n`;
+  for (const c of plan.contacts) {
+    let row = '';
+    for (let j = 0; j < columns.length; j++) {
+      const col = columns[j]!;
+      if (j > 0) row += ',';
+      if (!(col.link && !c.link) && !(col.when && !col.when(c))) row += csvField(col.value(c));
+    }
+    yield `${row}\n`;
+  }
 }
 
 /** One Sun outage with fixed rounding (JSON and CSV share it). */

@@ -6,7 +6,11 @@ export interface Column {
 }
 
 export function renderTable(columns: Column[], rows: string[][]): string {
-  const widths = columns.map((c, i) => Math.max(c.header.length, ...rows.map((r) => (r[i] ?? '').length)));
+  const widths = columns.map((c, i) => {
+    let w = c.header.length; // a loop, not a spread: a table may have a million rows
+    for (const r of rows) w = Math.max(w, (r[i] ?? '').length);
+    return w;
+  });
   const line = (cells: string[]) =>
     cells
       .map((cell, i) => {

@@ -11,7 +11,7 @@
  * process that no longer exists (src/report/outdir.ts) and says so.
  */
 import { lstatSync, mkdirSync, renameSync, rmSync, rmdirSync, createWriteStream } from 'node:fs';
-import { mkdir, writeFile } from 'node:fs/promises';
+import { mkdir, open, writeFile } from 'node:fs/promises';
 import { hostname } from 'node:os';
 import { basename, dirname, join, relative } from 'node:path';
 import { OutputError } from '../errors.js';
@@ -19,7 +19,36 @@ import { OutputError } from '../errors.js';
 export interface OutputFile {
   /** Path relative to the output folder. */
   name: string;
-  content: string;
+  /**
+   * The whole text, or its pieces in order (made while the file is written, so a large
+   * output never exists as one string: the pieces are gathered to WRITE_CHUNK_CHARS).
+   */
+  content: string | Iterable<string> | Uint8Array;
+}
+
+/** Characters gathered before one write of a streamed output. */
+export const WRITE_CHUNK_CHARS = 1 << 20;
+
+/** Writes `content` to `path` (a new file): text as UTF-8, piece by piece for an iterable; bytes as they are. */
+async function writeContent(path: string, content: OutputFile['content']): Promise<void> {
+  if (typeof content === 'string' || content instanceof Uint8Array) {
+    await writeFile(path, content);
+    return;
+  }
+  const fh = await open(path, 'w');
+  try {
+    let buf = '';
+    for (const piece of content) {
+      buf += piece;
+      if (buf.length >= WRITE_CHUNK_CHARS) {
+        await fh.writeFile(buf, 'utf8'); // the whole piece, from the current position
+        buf = '';
+      }
+    }
+    if (buf.length > 0) await fh.writeFile(buf, 'utf8'); // the whole piece, from the current position
+  } finally {
+    await fh.close();
+  }
 }
 
 /** Host names as they may appear in a file name. */
@@ -105,7 +134,7 @@ export async function writeOutputs(dir: string, files: OutputFile[]): Promise<st
       const temp = besideWith(final, 'tmp');
       openTemps.add(temp);
       staged.push({ temp, final });
-      await writeFile(temp, f.content, 'utf8');
+      await writeContent(temp, f.content);
     }
   } catch (err) {
     discard();

@@ -20,7 +20,7 @@
  * Units, when given in brackets (KVN) or a units attribute (XML), must be the
  * CCSDS ones (rev/day, deg, 1/ER, rev/day**2, rev/day**3).
  */
-import { XMLParser, XMLValidator } from 'fast-xml-parser';
+import { xmlLib } from '../lazy.js';
 import type { Problem } from '../errors.js';
 import type { ElementSet, OmmElements } from './types.js';
 import {
@@ -256,12 +256,12 @@ function readXml(text: string, report: Report): Message[] {
     );
     return [];
   }
-  const valid = XMLValidator.validate(text);
+  const valid = xmlLib().XMLValidator.validate(text);
   if (valid !== true) {
     report(`not well-formed XML: ${valid.err.msg} (line ${valid.err.line}, column ${valid.err.col}); valid: an NDM/XML document with <omm> elements`);
     return [];
   }
-  const parser = new XMLParser({
+  const parser = new (xmlLib().XMLParser)({
     ignoreAttributes: false,
     attributeNamePrefix: '@_',
     removeNSPrefix: true,

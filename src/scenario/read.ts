@@ -5,7 +5,7 @@
  */
 import { readFileSync, statSync } from 'node:fs';
 import { isAbsolute, resolve, dirname, extname } from 'node:path';
-import { parse as parseYaml, parseDocument } from 'yaml';
+import { yamlLib } from '../lazy.js';
 import type { z } from 'zod';
 import type { Problem } from '../errors.js';
 
@@ -88,7 +88,7 @@ export function parseStructured(text: string, file: string): ReadResult<unknown>
     fail(file, '', `nests arrays and objects more than ${MAX_NESTING_DEPTH} levels deep${at}; valid: at most ${MAX_NESTING_DEPTH} levels`);
   if (deepAt >= 0) return tooDeep(` (line ${text.slice(0, deepAt).split('\n').length})`);
   try {
-    const value = (yaml ? parseYaml(text) : JSON.parse(text)) as unknown;
+    const value = (yaml ? yamlLib().parse(text) : JSON.parse(text)) as unknown;
     if (depthExceeds(value, MAX_NESTING_DEPTH)) return tooDeep('');
     return { ok: true, value };
   } catch (err) {
@@ -135,7 +135,7 @@ function show(value: unknown, written?: () => string | undefined): string {
  */
 export function writtenAt(source: string, path: readonly PropertyKey[]): string | undefined {
   try {
-    const doc = parseDocument(source);
+    const doc = yamlLib().parseDocument(source);
     const node = doc.getIn(path as unknown[], true) as { range?: [number, number, number] } | undefined;
     const r = node?.range;
     if (!r) return undefined;

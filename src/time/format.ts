@@ -5,11 +5,36 @@
  */
 import { DateTime } from 'luxon';
 
+const DAY_MS = 86_400_000;
+/** The last day formatted ("2026-03-05T") and its number: contacts come in runs of one day. */
+let cachedDay = Number.NaN;
+let cachedDayText = '';
+
+const two = (v: number): string => (v < 10 ? `0${v}` : `${v}`);
+
+/** Date.prototype.toISOString of whole ms, its "YYYY-MM-DDT" part cached per day (years 1970..9999). */
+function isoMs(ms: number): string {
+  const day = Math.floor(ms / DAY_MS);
+  if (!(day >= 0 && day < 2_932_897)) return new Date(ms).toISOString(); // outside 1970..9999
+  if (day !== cachedDay) {
+    cachedDay = day;
+    cachedDayText = new Date(day * DAY_MS).toISOString().slice(0, 11);
+  }
+  let r = ms - day * DAY_MS;
+  const h = Math.floor(r / 3_600_000);
+  r -= h * 3_600_000;
+  const m = Math.floor(r / 60_000);
+  r -= m * 60_000;
+  const sec = Math.floor(r / 1000);
+  const milli = r - sec * 1000;
+  return `${cachedDayText}${two(h)}:${two(m)}:${two(sec)}.${milli < 10 ? '00' : milli < 100 ? '0' : ''}${milli}Z`;
+}
+
 /** ISO 8601 UTC with `decimals` fractional-second digits (0..3). */
 export function isoUtc(tMs: number, decimals = 1): string {
   const scale = 10 ** (3 - decimals);
   const rounded = Math.round(tMs / scale) * scale;
-  const s = new Date(rounded).toISOString(); // 2026-03-05T04:12:33.400Z
+  const s = isoMs(rounded); // 2026-03-05T04:12:33.400Z
   if (decimals === 3) return s;
   return decimals === 0 ? `${s.slice(0, 19)}Z` : `${s.slice(0, 20 + decimals)}Z`;
 }

@@ -29,7 +29,7 @@ const demoFleet = JSON.parse(readFileSync(join(root, 'ephemerides', 'demo-fleet.
 const version = (JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { version: string }).version;
 const STATIONS = ['FRV', 'ALK', 'MDL', 'SAL', 'EQP', 'SCX'];
 /** What `plan --days 1` writes on the demo network (no --schedule). */
-const PLAN_FILES = ['calendar/', ...STATIONS.map((s) => `calendar/${s}.ics`), 'contacts.csv', 'contacts.ics', 'daily.csv', 'plan.json', 'report.html', 'sun-outages.csv'].sort();
+const PLAN_FILES = ['calendar/', ...STATIONS.map((s) => `calendar/${s}.ics`), 'contacts.csv', 'contacts.ics', 'contacts.jsonl', 'daily.csv', 'plan.json', 'report.html', 'sun-outages.csv'].sort();
 
 // ------------------------------------------------------------------ inputs
 

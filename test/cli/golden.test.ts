@@ -38,6 +38,11 @@ describe('golden files on the demo week', () => {
     const r = await cli(['plan', '--out', out]);
     expect(r.code).toBe(0);
     for (const f of ['plan.json', 'contacts.csv', 'daily.csv', 'sun-outages.csv']) compare(`plan/${f}`, readFileSync(join(out, f), 'utf8'));
+    // contacts.jsonl: line i is plan.json's contacts[i], compact (jsonlines.org: one JSON value per line)
+    const lines = readFileSync(join(out, 'contacts.jsonl'), 'utf8').split('\n');
+    expect(lines.pop()).toBe('');
+    const contacts = (JSON.parse(readFileSync(join(out, 'plan.json'), 'utf8')) as { contacts: unknown[] }).contacts;
+    expect(lines).toEqual(contacts.map((c) => JSON.stringify(c)));
   });
 
   it('margin: margin.json, margin.csv, exit 1 on the failing rows', async () => {

@@ -89,7 +89,7 @@ describe('plan --local-days outputs', () => {
     const names = listFiles(dirA).sort();
     expect(names).toEqual(listFiles(dirB).sort());
     expect(names).toEqual(
-      ['calendar/ALK.ics', 'calendar/EQP.ics', 'calendar/FRV.ics', 'calendar/MDL.ics', 'calendar/SAL.ics', 'calendar/SCX.ics', 'contacts.csv', 'contacts.ics', 'daily.csv', 'plan.json', 'report.html', 'sun-outages.csv'].sort(),
+      ['calendar/ALK.ics', 'calendar/EQP.ics', 'calendar/FRV.ics', 'calendar/MDL.ics', 'calendar/SAL.ics', 'calendar/SCX.ics', 'contacts.csv', 'contacts.ics', 'contacts.jsonl', 'daily.csv', 'plan.json', 'report.html', 'sun-outages.csv'].sort(),
     );
     for (const n of names) expect(readFileSync(join(dirB, n)).equals(readFileSync(join(dirA, n))), n).toBe(true);
   });

@@ -15,7 +15,7 @@
  * astronomy-engine's lunar theory holds for centuries around 2000.
  * Units: km, km/s, UTC epoch ms.
  */
-import { GeoMoonState, KM_PER_AU } from 'astronomy-engine';
+import { astronomyLib } from '../../lazy.js';
 import type { Span } from '../../scenario/types.js';
 import { gmstRadAt, inertialOfDateToEcef } from '../frames.js';
 import type { Target } from '../types.js';
@@ -53,6 +53,7 @@ class MoonTarget implements Target {
     this.offsetRad = new Float64Array(this.nodeCount);
     const m = new Float64Array(9);
     const tmp = new Float64Array(3);
+    const { GeoMoonState, KM_PER_AU } = astronomyLib();
     for (let k = 0; k < this.nodeCount; k++) {
       const tMs = this.t0Ms + k * stepMs;
       const s = GeoMoonState(astroDays(tMs));

@@ -13,7 +13,7 @@
  * sample it coarsely. UT1 = UTC (astronomy-engine does the same).
  * Units: epoch ms in; radians, unitless matrices out.
  */
-import { Rotation_EQJ_EQD, SiderealTime } from 'astronomy-engine';
+import { astronomyLib } from '../../lazy.js';
 import { gmstRadAt } from '../frames.js';
 
 /** Unix ms of J2000.0 as astronomy-engine counts UT days: 2000-01-01T12:00:00 UTC. */
@@ -27,7 +27,7 @@ export function astroDays(tMs: number): number {
 
 /** EQJ -> EQD rotation at tMs, row-major 3x3 (out[3*row + col]), applied as v' = M v. */
 export function eqjToEqdMatrix(tMs: number, out: Float64Array): void {
-  const rot = Rotation_EQJ_EQD(astroDays(tMs)).rot;
+  const rot = astronomyLib().Rotation_EQJ_EQD(astroDays(tMs)).rot;
   // astronomy-engine applies rot as v'_j = sum_i v_i rot[i][j] (RotateVector).
   for (let row = 0; row < 3; row++) {
     for (let col = 0; col < 3; col++) out[3 * row + col] = rot[col]![row]!;
@@ -36,7 +36,7 @@ export function eqjToEqdMatrix(tMs: number, out: Float64Array): void {
 
 /** GAST (astronomy-engine) minus GMST (satellite.js), rad, wrapped to (-pi, pi]. */
 export function siderealOffsetRad(tMs: number): number {
-  const gastRad = (SiderealTime(astroDays(tMs)) * Math.PI) / 12;
+  const gastRad = (astronomyLib().SiderealTime(astroDays(tMs)) * Math.PI) / 12;
   let d = gastRad - gmstRadAt(tMs);
   while (d > Math.PI) d -= 2 * Math.PI;
   while (d <= -Math.PI) d += 2 * Math.PI;

@@ -90,8 +90,15 @@ function chart(s: ContactSeries, hueClass: string, idBase: string): string {
 export function renderSeriesSection(plan: PlanResult, series: readonly ContactSeries[], caption: (s: ContactSeries) => string): string {
   if (series.length === 0) return '<p class="note">No contact with a computed link in this plan.</p>';
   const scIndex = new Map(plan.spacecraft.map((s, i) => [s.id, i]));
-  const contactOf = (s: ContactSeries): Contact | undefined =>
-    plan.contacts.find((c) => c.stationId === s.stationId && c.spacecraftId === s.spacecraftId && c.aosMs === s.aosMs);
+  // the charted contacts looked up once (a find per chart over a million contacts is slow)
+  const key = (stationId: string, spacecraftId: string, aosMs: number): string => `${stationId}|${spacecraftId}|${aosMs}`;
+  const wanted = new Set(series.map((s) => key(s.stationId, s.spacecraftId, s.aosMs)));
+  const charted = new Map<string, Contact>();
+  for (const c of plan.contacts) {
+    const k = key(c.stationId, c.spacecraftId, c.aosMs);
+    if (wanted.has(k) && !charted.has(k)) charted.set(k, c);
+  }
+  const contactOf = (s: ContactSeries): Contact | undefined => charted.get(key(s.stationId, s.spacecraftId, s.aosMs));
   const parts = ['<div class="cards">'];
   series.forEach((s, i) => {
     const c = contactOf(s);
