@@ -8,6 +8,7 @@
  * Run: npm run bench. Exported pieces let later figures (demo week, link engine) be added.
  */
 import { isEntryModule } from '../src/cli/entry.js';
+import { checksum } from './workload.js';
 import { findPassesBruteForce } from '../src/geometry/bruteforce.js';
 import { makeSite } from '../src/geometry/earth.js';
 import { findPasses } from '../src/geometry/passes.js';
@@ -18,14 +19,6 @@ import type { ElementSet, Mask, Span } from '../src/scenario/types.js';
 const MU_KM3_S2 = 398600.8; // WGS-72, only to invent mean motions
 const EARTH_RADIUS_KM = 6378.135;
 
-function checksum(line: string): number {
-  let sum = 0;
-  for (const ch of line) {
-    if (ch >= '0' && ch <= '9') sum += ch.charCodeAt(0) - 48;
-    else if (ch === '-') sum += 1;
-  }
-  return sum % 10;
-}
 
 /** Invented circular-ish LEO element sets, spread over 400..1400 km and 30..99 deg. */
 export function syntheticFleet(count: number, epochMs: number): { id: string; sets: ElementSet[] }[] {

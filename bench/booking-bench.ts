@@ -18,17 +18,8 @@ import { DEFAULT_RULES, type BookingRules, type SpacecraftRules } from '../src/p
 import { VOLUME_BIN_MS, type Contact, type PlanResult } from '../src/plan/types.js';
 import type { Scenario } from '../src/scenario/types.js';
 import { join } from 'node:path';
+import { seeded as rng } from './workload.js';
 
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function window(sc: string, st: string, aosMs: number, losMs: number, rateBps: number): Contact {
   const binStartMs = Math.floor(aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS;

@@ -24,7 +24,8 @@ export function seeded(seed: number): () => number {
   };
 }
 
-function checksum(line: string): number {
+/** TLE line checksum: digits add their value, '-' adds 1, modulo 10. */
+export function checksum(line: string): number {
   let sum = 0;
   for (const ch of line) {
     if (ch >= '0' && ch <= '9') sum += ch.charCodeAt(0) - 48;

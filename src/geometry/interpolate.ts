@@ -74,3 +74,31 @@ export class StateInterpolator {
     return true;
   }
 }
+
+/**
+ * Cubic Hermite state between packed nodes k and k+1 of `nodes` ([x y z vx vy vz] per node,
+ * spaced hS seconds), at fraction s of the interval: position into out[o..o+2], velocity
+ * into out[o+3..o+5]. Allocation-free (hot path of the tabulated Moon).
+ */
+export function hermitePackedState(nodes: Float64Array, k: number, s: number, hS: number, out: Float64Array | number[], o: number): void {
+  const s2 = s * s;
+  const s3 = s2 * s;
+  const h00 = 2 * s3 - 3 * s2 + 1;
+  const h10 = (s3 - 2 * s2 + s) * hS;
+  const h01 = -2 * s3 + 3 * s2;
+  const h11 = (s3 - s2) * hS;
+  const d00 = (6 * s2 - 6 * s) / hS;
+  const d10 = 3 * s2 - 4 * s + 1;
+  const d01 = (-6 * s2 + 6 * s) / hS;
+  const d11 = 3 * s2 - 2 * s;
+  const a = 6 * k;
+  const b = a + 6;
+  for (let i = 0; i < 3; i++) {
+    const p0 = nodes[a + i]!;
+    const v0 = nodes[a + 3 + i]!;
+    const p1 = nodes[b + i]!;
+    const v1 = nodes[b + 3 + i]!;
+    out[o + i] = h00 * p0 + h10 * v0 + h01 * p1 + h11 * v1;
+    out[o + 3 + i] = d00 * p0 + d10 * v0 + d01 * p1 + d11 * v1;
+  }
+}

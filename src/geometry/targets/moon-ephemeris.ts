@@ -9,6 +9,7 @@
  */
 import { GeoMoonState, KM_PER_AU } from 'astronomy-engine';
 import { astroDays } from './ofDate.js';
+import { hermitePackedState } from '../interpolate.js';
 
 export const MOON_TABLE_STEP_S = 1200;
 /** Padding of the table beyond the span, ms (light time, search edge samples). */
@@ -41,27 +42,6 @@ export class MoonEphemeris {
     const x = (tMs - this.t0Ms) / (hS * 1000);
     const k = Math.floor(x);
     if (!(k >= 0 && k < this.n - 1)) throw new RangeError(`Moon table asked at ${tMs} ms, outside the span it was built for (a bug in the caller)`);
-    const s = x - k;
-    const s2 = s * s;
-    const s3 = s2 * s;
-    const h00 = 2 * s3 - 3 * s2 + 1;
-    const h10 = (s3 - 2 * s2 + s) * hS;
-    const h01 = -2 * s3 + 3 * s2;
-    const h11 = (s3 - s2) * hS;
-    const d00 = (6 * s2 - 6 * s) / hS;
-    const d10 = 3 * s2 - 4 * s + 1;
-    const d01 = (-6 * s2 + 6 * s) / hS;
-    const d11 = 3 * s2 - 2 * s;
-    const nd = this.nodes;
-    const a = 6 * k;
-    const b = a + 6;
-    for (let i = 0; i < 3; i++) {
-      const p0 = nd[a + i]!;
-      const v0 = nd[a + 3 + i]!;
-      const p1 = nd[b + i]!;
-      const v1 = nd[b + 3 + i]!;
-      out[o + i] = h00 * p0 + h10 * v0 + h01 * p1 + h11 * v1;
-      out[o + 3 + i] = d00 * p0 + d10 * v0 + d01 * p1 + d11 * v1;
-    }
+    hermitePackedState(this.nodes, k, x - k, hS, out, o);
   }
 }

@@ -19,6 +19,7 @@ import { astronomyLib } from '../../lazy.js';
 import type { Span } from '../../scenario/types.js';
 import { gmstRadAt, inertialOfDateToEcef } from '../frames.js';
 import type { Target } from '../types.js';
+import { hermitePackedState } from '../interpolate.js';
 import { astroDays, eqjToEqdMatrix, rotate3, siderealOffsetRad } from './ofDate.js';
 
 /** Node spacing of the sampled lunar ephemeris, s (knob; 10-30 min all give < 1 m). */
@@ -41,8 +42,10 @@ class MoonTarget implements Target {
   /** Per node: x y z (km) vx vy vz (km/s) in the true equator of date. */
   private readonly nodes: Float64Array;
   private readonly offsetRad: Float64Array;
-  private readonly r = new Float64Array(3);
-  private readonly v = new Float64Array(3);
+  /** Position and velocity of date, km and km/s; r and v are views of it. */
+  private readonly rv = new Float64Array(6);
+  private readonly r = this.rv.subarray(0, 3);
+  private readonly v = this.rv.subarray(3, 6);
 
   constructor(spacecraftId: string, span: Span) {
     this.spacecraftId = spacecraftId;
@@ -82,27 +85,7 @@ class MoonTarget implements Target {
     }
     this.evaluations++;
     const s = x - k;
-    const s2 = s * s;
-    const s3 = s2 * s;
-    const h00 = 2 * s3 - 3 * s2 + 1;
-    const h10 = (s3 - 2 * s2 + s) * hS;
-    const h01 = -2 * s3 + 3 * s2;
-    const h11 = (s3 - s2) * hS;
-    const d00 = (6 * s2 - 6 * s) / hS;
-    const d10 = 3 * s2 - 4 * s + 1;
-    const d01 = (-6 * s2 + 6 * s) / hS;
-    const d11 = 3 * s2 - 2 * s;
-    const n = this.nodes;
-    const a = 6 * k;
-    const b = a + 6;
-    for (let i = 0; i < 3; i++) {
-      const p0 = n[a + i]!;
-      const v0 = n[a + 3 + i]!;
-      const p1 = n[b + i]!;
-      const v1 = n[b + 3 + i]!;
-      this.r[i] = h00 * p0 + h10 * v0 + h01 * p1 + h11 * v1;
-      this.v[i] = d00 * p0 + d10 * v0 + d01 * p1 + d11 * v1;
-    }
+    hermitePackedState(this.nodes, k, s, hS, this.rv, 0);
     const offset = this.offsetRad[k]! + s * (this.offsetRad[k + 1]! - this.offsetRad[k]!);
     inertialOfDateToEcef(this.r, this.v, gmstRadAt(tMs) + offset, out);
     return true;
