@@ -379,7 +379,8 @@ const cases: Case[] = [
     command: (c) => ['plan', '--spacecraft', c.files['fleet.json']!, ...net, '--step', '1s', '--out', c.out],
     spawn: { kind: 'signal', signal: 'SIGTERM', afterMs: 700 },
     exit: 143,
-    first: /^terminated \(SIGTERM\): stopped; no output was written or replaced$/,
+    // empty when the signal lands before the handlers are installed (a loaded machine): Node's default action, still exit 143 and nothing written
+    first: /^$|^terminated \(SIGTERM\): stopped; no output was written or replaced$/,
     files: [],
   },
   {
