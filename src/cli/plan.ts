@@ -47,10 +47,15 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       const span = spanFor(opts, scenario, io);
       assertPreflight(scenario, span); // file and field of a model-range problem, before any work
       const progress = progressLine(io, 'plan');
+      const everyWindow = !shard && !rules && !raw.schedule && !raw.oneStationAtATime;
       const unscheduled = await withNamedProblems(scenario, span, () =>
         runPlanParallel(shard ? shardScenario(scenario, shard) : scenario, span, {
           ...(opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}),
           onProgress: countHook(progress, 'stage'),
+          // the workers render the contacts' texts when every window is shown and written or printed whole
+          renderTexts: everyWindow && (opts.write || opts.format !== 'table'),
+          // and their spacecraft's own figures: volume counted once, margin rows for the report
+          weekParts: shard ? 'none' : opts.write ? 'margins' : everyWindow ? 'unique' : 'none',
         }),
       );
       progress.end();

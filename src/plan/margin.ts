@@ -54,7 +54,7 @@ import { discAntennaTempK } from '../link/body-noise.js';
 import { MOON_MEAN_RADIUS_KM } from '../geometry/targets/moon-ephemeris.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import type { LinkSettings, Scenario, Span, Station } from '../scenario/types.js';
-import { prepareGeometry } from './contacts.js';
+import { prepareGeometry, type Geometry } from './contacts.js';
 import { linkKey, lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
 import type { Contact, PlanResult } from './types.js';
 import type { AtmosphereTable } from '../link/atmosphere/types.js';
@@ -245,8 +245,8 @@ function lowestElevationDeg(target: Target, site: Site, span: Span, look: Look):
  * One row per station and spacecraft with a data radio (station order, then spacecraft
  * order), for the plan's scenario and span. Pure; the HTML report may call it.
  */
-export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOptions = {}): MarginRow[] {
-  const geometry = prepareGeometry(scenario, plan.span);
+export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOptions = {}, prepared?: Geometry): MarginRow[] {
+  const geometry = prepared ?? prepareGeometry(scenario, plan.span);
   const radii = new Map<string, { radiusKm: number; atMs: number } | undefined>();
   for (const sc of scenario.spacecraft) {
     const target = geometry.targets.get(sc.id);

@@ -19,6 +19,8 @@ import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import type { PlanResult, WarningOrigin } from './types.js';
 import { reviveError, type SerializedError } from '../errors.js';
 import { runningWorkers, terminateWorkers } from './workers.js';
+import { attachContactTexts, type BatchTexts } from '../report/contact-store.js';
+import { attachPlanParts, type BatchParts } from './worker-parts.js';
 
 /** A batch of spacecraft sent to a worker. */
 export interface BatchJob {
@@ -27,7 +29,20 @@ export interface BatchJob {
 }
 
 /** What a plan worker posts back for a batch: its result, or its error as data. */
-export type WorkerReply = { ok: true; batch: number; result: PlanResult } | { ok: false; error: SerializedError };
+export type WorkerReply = { ok: true; batch: number; result: PlanResult; texts?: BatchTexts; parts?: BatchParts } | { ok: false; error: SerializedError };
+
+export interface ParallelOptions extends PlanOptions {
+  /**
+   * Have each worker render its batch's contact texts (report/batch-text.ts), attached to
+   * the merged plan for the outputs to copy (set when the outputs will be written or printed).
+   */
+  renderTexts?: boolean;
+  /**
+   * Have each worker make its spacecraft's own figures of the week (plan/worker-parts.ts):
+   * 'unique' volumes, or 'margins' too (for the report).
+   */
+  weekParts?: 'none' | 'unique' | 'margins';
+}
 
 export const MIN_SPACECRAFT_PER_THREAD = 4;
 /** Most spacecraft in one batch (bounds what a worker holds and sends at once). */
@@ -53,17 +68,19 @@ function workerUrl(): URL | undefined {
   return import.meta.url.endsWith('.js') ? url : undefined;
 }
 
-export async function runPlanParallel(scenario: Scenario, span: Span, opts: PlanOptions = {}, maxThreads?: number): Promise<PlanResult> {
+export async function runPlanParallel(scenario: Scenario, span: Span, opts: ParallelOptions = {}, maxThreads?: number): Promise<PlanResult> {
   const threads = threadsFor(scenario.spacecraft.length, maxThreads);
   const url = workerUrl();
   if (url === undefined || inlineWorthy(scenario)) return runPlan(scenario, span, opts);
-  const { onProgress, ...plain } = opts;
+  const { onProgress, renderTexts, weekParts, ...plain } = opts;
   // batches small enough to spread evenly (several per thread), at most MAX_BATCH_SPACECRAFT
   const size = Math.max(1, Math.min(MAX_BATCH_SPACECRAFT, Math.ceil(scenario.spacecraft.length / (4 * threads))));
   const batches: Spacecraft[][] = [];
   for (let i = 0; i < scenario.spacecraft.length; i += size) batches.push(scenario.spacecraft.slice(i, i + size));
   if (batches.length === 0) batches.push([]);
   const parts: PlanResult[] = new Array<PlanResult>(batches.length);
+  const texts: (BatchTexts | undefined)[] = new Array<BatchTexts | undefined>(batches.length);
+  const figures: (BatchParts | undefined)[] = new Array<BatchParts | undefined>(batches.length);
   let next = 0;
   let done = 0;
   onProgress?.(0, batches.length, 'batches');
@@ -81,7 +98,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
       };
       const workers = Math.min(threads, batches.length);
       for (let t = 0; t < workers; t++) {
-        const w = new Worker(url, { workerData: { scenario: base, span, opts: plain } });
+        const w = new Worker(url, { workerData: { scenario: base, span, opts: plain, renderTexts: Boolean(renderTexts), weekParts: weekParts ?? 'none' } });
         runningWorkers.add(w);
         let retired = false;
         const feed = (): void => {
@@ -101,6 +118,8 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
             return;
           }
           parts[r.batch] = withSharedIds(r.result, ids);
+          texts[r.batch] = r.texts;
+          figures[r.batch] = r.parts;
           done++; // not inside onProgress?.(...): its arguments are skipped without a hook
           onProgress?.(done, batches.length, 'batches');
           if (done === batches.length) resolve();
@@ -118,7 +137,10 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Plan
     terminateWorkers(); // the first error wins; the other batches' work is moot
     throw err;
   }
-  return mergePlans(scenario, span, parts);
+  const { plan, source } = mergePlansWithSource(scenario, span, parts);
+  if (renderTexts) attachContactTexts(plan, { batches: texts, source });
+  if (figures.every((f) => f !== undefined)) attachPlanParts(plan, scenario, figures as BatchParts[]);
+  return plan;
 }
 
 /**
@@ -138,15 +160,43 @@ function withSharedIds(result: PlanResult, ids: ReadonlyMap<string, string>): Pl
 
 /** Merges per-group results into the single-thread order. */
 export function mergePlans(scenario: Scenario, span: Span, parts: PlanResult[]): PlanResult {
+  return mergePlansWithSource(scenario, span, parts).plan;
+}
+
+/**
+ * mergePlans, with where each merged contact came from: contact i is contact source[2i + 1]
+ * of part source[2i]. The order is runPlan's (station, AOS, spacecraft; ties in part order).
+ */
+export function mergePlansWithSource(scenario: Scenario, span: Span, parts: PlanResult[]): { plan: PlanResult; source: Uint32Array } {
   const stationOrder = new Map(scenario.stations.map((s, i) => [s.id, i]));
   const scOrder = new Map(scenario.spacecraft.map((s, i) => [s.id, i]));
-  const contacts = parts.flatMap((p) => p.contacts);
-  contacts.sort(
-    (a, b) =>
-      (stationOrder.get(a.stationId) ?? 0) - (stationOrder.get(b.stationId) ?? 0) ||
-      a.aosMs - b.aosMs ||
-      (scOrder.get(a.spacecraftId) ?? 0) - (scOrder.get(b.spacecraftId) ?? 0),
-  );
+  let n = 0;
+  for (const p of parts) n += p.contacts.length;
+  const all: PlanResult['contacts'] = new Array(n);
+  const st = new Float64Array(n);
+  const sc = new Float64Array(n);
+  const from = new Uint32Array(2 * n);
+  let k = 0;
+  parts.forEach((p, b) => {
+    p.contacts.forEach((c, j) => {
+      all[k] = c;
+      st[k] = stationOrder.get(c.stationId) ?? 0;
+      sc[k] = scOrder.get(c.spacecraftId) ?? 0;
+      from[2 * k] = b;
+      from[2 * k + 1] = j;
+      k++;
+    });
+  });
+  const order = Array.from({ length: n }, (_, i) => i);
+  order.sort((a, b) => st[a]! - st[b]! || all[a]!.aosMs - all[b]!.aosMs || sc[a]! - sc[b]! || a - b);
+  const contacts: PlanResult['contacts'] = new Array(n);
+  const source = new Uint32Array(2 * n);
+  for (let i = 0; i < n; i++) {
+    const o = order[i]!;
+    contacts[i] = all[o]!;
+    source[2 * i] = from[2 * o]!;
+    source[2 * i + 1] = from[2 * o + 1]!;
+  }
   const { warnings, origins } = mergeWarnings(scenario, parts);
   const stats = { propagations: 0, linkSamples: 0 };
   for (const p of parts) {
@@ -155,7 +205,7 @@ export function mergePlans(scenario: Scenario, span: Span, parts: PlanResult[]):
   }
   const merged = planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, warnings, stats, origins);
   if (parts.some((p) => p.sunOutages)) merged.sunOutages = sortOutages(scenario, parts.flatMap((p) => p.sunOutages ?? []));
-  return merged;
+  return { plan: merged, source };
 }
 
 /**

@@ -8,17 +8,23 @@
  * a user's mistake stays one line and exit 2, whichever thread found it.
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { runPlan, type PlanOptions } from './run.js';
+import { runPlanWithGeometry, type PlanOptions } from './run.js';
+import { batchParts } from './worker-parts.js';
 import { serializeError } from '../errors.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import { newLinkTableCache } from './link.js';
 import type { BatchJob, WorkerReply } from './parallel.js';
+import { renderBatchTexts, transferablesOf } from '../report/batch-text.js';
 
 interface Job {
   /** The scenario without its spacecraft (they come batch by batch). */
   scenario: Scenario;
   span: Span;
   opts: Omit<PlanOptions, 'onProgress'>;
+  /** Render each batch's contact texts too (report/batch-text.ts). */
+  renderTexts: boolean;
+  /** Make each batch's own figures too (plan/worker-parts.ts); 'margins': with the margin rows. */
+  weekParts: 'none' | 'unique' | 'margins';
 }
 
 const job = workerData as Job;
@@ -26,11 +32,20 @@ const tables = newLinkTableCache();
 
 parentPort?.on('message', (msg: BatchJob) => {
   let reply: WorkerReply;
+  let transfer: ArrayBuffer[] = [];
   try {
     const spacecraft: Spacecraft[] = msg.spacecraft;
-    reply = { ok: true, batch: msg.batch, result: runPlan({ ...job.scenario, spacecraft }, job.span, job.opts, tables) };
+    const scenario = { ...job.scenario, spacecraft };
+    const { result, geometry } = runPlanWithGeometry(scenario, job.span, job.opts, tables);
+    reply = { ok: true, batch: msg.batch, result };
+    if (job.renderTexts) {
+      reply.texts = renderBatchTexts(result);
+      transfer = transferablesOf(reply.texts);
+    }
+    if (job.weekParts !== 'none') reply.parts = batchParts(scenario, result, geometry, job.weekParts === 'margins');
   } catch (err) {
     reply = { ok: false, error: serializeError(err) };
+    transfer = [];
   }
-  parentPort?.postMessage(reply);
+  parentPort?.postMessage(reply, transfer);
 });

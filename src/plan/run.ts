@@ -4,7 +4,7 @@
  */
 import { DEFAULT_SEARCH, type SearchOptions } from '../geometry/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
-import { prepareGeometry, findContacts } from './contacts.js';
+import { prepareGeometry, findContacts, type Geometry } from './contacts.js';
 import { prepareLinks, type LinkTableCache, integrateContacts, integrateOtherRadios, DEFAULT_LINK_STEP_S } from './link.js';
 import type { PlanResult, SunOutage } from './types.js';
 import { findSunOutages } from './sun-outages.js';
@@ -22,6 +22,11 @@ export interface PlanOptions {
 
 /** `cache`: link tables kept across calls (a worker's batches of one run share them). */
 export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, cache?: LinkTableCache): PlanResult {
+  return runPlanWithGeometry(scenario, span, opts, cache).result;
+}
+
+/** runPlan, with the geometry it prepared (a worker reuses it for the spacecraft's own figures: plan/worker-parts.ts). */
+export function runPlanWithGeometry(scenario: Scenario, span: Span, opts: PlanOptions = {}, cache?: LinkTableCache): { result: PlanResult; geometry: Geometry } {
   const geometry = prepareGeometry(scenario, span);
   const total = opts.geometryOnly ? 1 : 2;
   opts.onProgress?.(0, total, 'contact search');
@@ -46,7 +51,7 @@ export function runPlan(scenario: Scenario, span: Span, opts: PlanOptions = {}, 
   }
   const result = planResult(scenario, span, linkStepS, found.contacts, warnings, { propagations, linkSamples }, origins);
   if (sunOutages) result.sunOutages = sunOutages;
-  return result;
+  return { result, geometry };
 }
 
 /** A PlanResult from its parts (shared with sizing, which re-runs only the link stage). */

@@ -17,6 +17,7 @@ import { scheduleContacts, scheduledPlan, type ScheduleResult } from './schedule
 import { highestVolumeContacts, passesThatMatter, seriesForContacts, type ContactSeries } from './series.js';
 import type { PlanResult } from './types.js';
 import { uniqueVolumes } from './unique-volume.js';
+import { workerMarginRows, workerUniqueVolumes } from './worker-parts.js';
 
 export interface WeekOptions {
   dayMode: DayMode;
@@ -57,10 +58,8 @@ export function planWeek(scenario: Scenario, unscheduled: PlanResult, opts: Week
   const daily = dailyTotals(plan, opts.dayMode);
   // with a recorder, delivered = what left the recorder; the link volume is capacity
   const delivered = recorders ? new Map(recorders.tracks.map((t) => [t.spacecraftId, t.downlinkedBits])) : undefined;
-  const unique = uniqueVolumes(
-    plan.spacecraft.map((s) => s.id),
-    plan.contacts,
-  );
+  const ids = plan.spacecraft.map((s) => s.id);
+  const unique = workerUniqueVolumes(plan, ids) ?? uniqueVolumes(ids, plan.contacts);
   const totals = spacecraftTotals(plan, delivered, unique);
   const allStations = opts.dayMode.kind === 'utc' ? allStationsDaily(plan, daily, unique) : undefined;
   return { unscheduled, plan, dayMode: opts.dayMode, daily, totals, allStations, schedule, recorders, booked, oneStationAtATime: opts.oneStationAtATime };
@@ -77,7 +76,7 @@ export interface WeekReportParts {
 export function weekReportParts(scenario: Scenario, span: Span, week: Week): WeekReportParts {
   const { plan, dayMode, schedule } = week;
   return {
-    margins: marginRows(scenario, week.unscheduled),
+    margins: workerMarginRows(week.unscheduled) ?? marginRows(scenario, week.unscheduled),
     series: seriesForContacts(scenario, span, highestVolumeContacts(plan).slice(0, SERIES_SPACECRAFT_LIMIT)),
     passViews: passViewsFor(scenario, span, plan),
     provenance: provenanceFor(scenario, span, plan, [

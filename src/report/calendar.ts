@@ -22,13 +22,17 @@
 import type { Contact, PlanResult } from '../plan/types.js';
 import { isoUtc, formatDuration } from '../time/format.js';
 import { formatBits } from './table.js';
+import { contactTextsOf, FORM, storedText } from './contact-store.js';
 
 const CRLF = '\r\n';
 const MAX_LINE_OCTETS = 75;
 export const PRODID = '-//passbudget//contact plan//EN';
 
+const NEEDS_ESCAPE = /[\\;,\r\n]/;
+
 /** RFC 5545 §3.3.11 TEXT escaping. */
 export function escapeText(text: string): string {
+  if (!NEEDS_ESCAPE.test(text)) return text;
   return text.replace(/\\/g, '\\\\').replace(/;/g, '\\;').replace(/,/g, '\\,').replace(/\r\n|\r|\n/g, '\\n');
 }
 
@@ -71,7 +75,8 @@ export function foldLine(line: string): string {
 /** RFC 5545 §3.3.5 UTC DATE-TIME, whole seconds (`round`: how to drop the fraction). */
 export function icalUtc(tMs: number, round: 'floor' | 'ceil'): string {
   const s = round === 'floor' ? Math.floor(tMs / 1000) : Math.ceil(tMs / 1000);
-  return new Date(s * 1000).toISOString().slice(0, 19).replace(/[-:]/g, '') + 'Z';
+  const t = isoUtc(s * 1000, 0); // 2026-03-05T07:43:31Z
+  return `${t.slice(0, 4)}${t.slice(5, 7)}${t.slice(8, 13)}${t.slice(14, 16)}${t.slice(17, 19)}Z`;
 }
 
 const uidPart = (s: string) => s.replace(/[^A-Za-z0-9._-]/g, '_');
@@ -91,13 +96,13 @@ export function contactUids(plan: PlanResult): string[] {
 }
 
 /** Names by id and the DTSTAMP line, looked up once per calendar. */
-interface EventContext {
+export interface EventContext {
   scName: Map<string, string>;
   stName: Map<string, string>;
   dtstamp: string;
 }
 
-function eventContext(plan: PlanResult): EventContext {
+export function eventContext(plan: PlanResult): EventContext {
   return {
     scName: new Map(plan.spacecraft.map((s) => [s.id, s.name])),
     stName: new Map(plan.stations.map((s) => [s.id, s.name])),
@@ -105,7 +110,7 @@ function eventContext(plan: PlanResult): EventContext {
   };
 }
 
-function eventText(ctx: EventContext, c: Contact, uid: string): string {
+export function eventText(ctx: EventContext, c: Contact, uid: string): string {
   const scName = ctx.scName.get(c.spacecraftId) ?? c.spacecraftId;
   const stName = ctx.stName.get(c.stationId) ?? c.stationId;
   const desc = [
@@ -142,14 +147,22 @@ function eventText(ctx: EventContext, c: Contact, uid: string): string {
 
 /**
  * One calendar in pieces (one per event) of the plan's contacts at `indices` (into
- * plan.contacts), taken in the order given: by AOS, then plan order.
+ * plan.contacts), taken in the order given: by AOS, then plan order. An event a plan
+ * worker rendered (report/batch-text.ts) is copied as it is.
  */
-function* calendarPieces(plan: PlanResult, indices: Iterable<number>, name: string, uids: readonly string[]): Generator<string> {
+function* calendarPieces(plan: PlanResult, indices: Iterable<number>, name: string, uids: () => readonly string[]): Generator<string | Uint8Array> {
   const head = ['BEGIN:VCALENDAR', 'VERSION:2.0', `PRODID:${PRODID}`, 'CALSCALE:GREGORIAN', 'METHOD:PUBLISH', `NAME:${escapeText(name)}`, `X-WR-CALNAME:${escapeText(name)}`];
   yield head.map(foldLine).join(CRLF) + CRLF;
   const ctx = eventContext(plan);
-  for (const i of indices) yield eventText(ctx, plan.contacts[i]!, uids[i]!);
+  const store = contactTextsOf(plan);
+  for (const i of indices) yield (store && storedText(store, FORM.ics, i)) || eventText(ctx, plan.contacts[i]!, uids()[i]!);
   yield 'END:VCALENDAR' + CRLF;
+}
+
+/** contactUids made once, when first asked for. */
+function lazyUids(plan: PlanResult, made?: readonly string[]): () => readonly string[] {
+  let uids = made;
+  return () => (uids ??= contactUids(plan));
 }
 
 /** Indices of the plan's contacts ordered by AOS, then plan order. */
@@ -166,7 +179,7 @@ export function renderCalendar(plan: PlanResult, contacts: readonly Contact[], n
     if (i === undefined) throw new Error('renderCalendar: contact is not part of the plan');
     return i;
   });
-  return [...calendarPieces(plan, byAos(plan, indices), name, uids)].join('');
+  return [...calendarPieces(plan, byAos(plan, indices), name, lazyUids(plan, uids))].map((p) => (typeof p === 'string' ? p : Buffer.from(p).toString('utf8'))).join('');
 }
 
 /** File-name-safe form of a station id. */
@@ -176,8 +189,8 @@ export const stationFileName = (stationId: string) => `${uidPart(stationId)}.ics
  * The network calendar and one per station, paths relative to the output folder, each
  * made in pieces while it is written.
  */
-export function calendarFiles(plan: PlanResult): { name: string; content: Iterable<string> }[] {
-  const uids = contactUids(plan);
+export function calendarFiles(plan: PlanResult): { name: string; content: Iterable<string | Uint8Array> }[] {
+  const uids = lazyUids(plan);
   const span = `${isoUtc(plan.span.startMs, 0)} .. ${isoUtc(plan.span.endMs, 0)}`;
   const all = byAos(
     plan,
@@ -195,5 +208,5 @@ export function calendarFiles(plan: PlanResult): { name: string; content: Iterab
 
 /** The calendars as whole strings (calendarFiles made in one piece each). */
 export function renderCalendars(plan: PlanResult): { name: string; content: string }[] {
-  return calendarFiles(plan).map((f) => ({ name: f.name, content: [...f.content].join('') }));
+  return calendarFiles(plan).map((f) => ({ name: f.name, content: [...f.content].map((p) => (typeof p === 'string' ? p : Buffer.from(p).toString('utf8'))).join('') }));
 }

@@ -17,6 +17,19 @@ export class LazyList<T = unknown> {
   ) {}
 }
 
+/**
+ * An array of items already rendered as JSON text (or its UTF-8 bytes) at the indentation
+ * their place gives them (`pad`: the array's own indentation plus one level); written as
+ * they are.
+ */
+export class RawList {
+  constructor(
+    readonly length: number,
+    readonly at: (index: number) => string | Uint8Array,
+    readonly itemPad: string,
+  ) {}
+}
+
 const INDENT = '  ';
 
 /** One value below the opened depth, re-indented to sit at `pad`. */
@@ -27,10 +40,25 @@ function leaf(value: unknown, pad: string): string | undefined {
 }
 
 function isOpenable(v: unknown): v is object {
-  return v !== null && typeof v === 'object' && typeof (v as { toJSON?: unknown }).toJSON !== 'function';
+  return v !== null && typeof v === 'object' && typeof (v as { toJSON?: unknown }).toJSON !== 'function' && !(v instanceof RawList);
 }
 
-function* lazyItems(list: LazyList, pad: string): Generator<string> {
+function* rawItems(list: RawList, pad: string): Generator<string | Uint8Array> {
+  if (list.length === 0) {
+    yield '[]';
+    return;
+  }
+  const inner = pad + INDENT;
+  if (inner !== list.itemPad) throw new Error(`RawList rendered at ${JSON.stringify(list.itemPad)}, placed at ${JSON.stringify(inner)}`);
+  yield '[';
+  for (let i = 0; i < list.length; i++) {
+    yield i === 0 ? `\n${inner}` : `,\n${inner}`;
+    yield list.at(i);
+  }
+  yield `\n${pad}]`;
+}
+
+function* lazyItems(list: LazyList, pad: string): Generator<string | Uint8Array> {
   if (list.length === 0) {
     yield '[]';
     return;
@@ -45,7 +73,11 @@ function* lazyItems(list: LazyList, pad: string): Generator<string> {
 }
 
 /** Pieces of `value` at indentation `pad`; `inArray`: undefined prints as null. */
-function* piecesOf(value: unknown, pad: string, depth: number, inArray: boolean): Generator<string> {
+function* piecesOf(value: unknown, pad: string, depth: number, inArray: boolean): Generator<string | Uint8Array> {
+  if (value instanceof RawList) {
+    yield* rawItems(value, pad);
+    return;
+  }
   if (value instanceof LazyList) {
     yield* lazyItems(value, pad);
     return;
@@ -81,7 +113,7 @@ function* piecesOf(value: unknown, pad: string, depth: number, inArray: boolean)
 }
 
 /** The pieces of `JSON.stringify(value, null, 2) + '\n'`, objects and arrays opened to `depth`. */
-export function* jsonPieces(value: unknown, depth = 3): Generator<string> {
+export function* jsonPieces(value: unknown, depth = 3): Generator<string | Uint8Array> {
   yield* piecesOf(value, '', depth, false);
   yield '\n';
 }
@@ -89,4 +121,9 @@ export function* jsonPieces(value: unknown, depth = 3): Generator<string> {
 /** The pieces of a JSON Lines file: one `JSON.stringify(item)` per line. */
 export function* jsonLinesPieces<T>(list: LazyList<T>): Generator<string> {
   for (let i = 0; i < list.length; i++) yield `${JSON.stringify(list.at(i))}\n`;
+}
+
+/** The pieces of a JSON Lines file whose lines are already rendered (each with its line end). */
+export function* rawLinesPieces(list: RawList): Generator<string | Uint8Array> {
+  for (let i = 0; i < list.length; i++) yield list.at(i);
 }

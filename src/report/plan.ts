@@ -10,7 +10,13 @@ import { SUN_OUTAGE_BEAMWIDTHS } from '../geometry/sun-outage.js';
 import { isoUtc, isoInZone, formatDuration } from '../time/format.js';
 import { renderTable, fixed, formatBits, type Column } from './table.js';
 import { uniqueVolumes } from '../plan/unique-volume.js';
-import { jsonLinesPieces, jsonPieces, LazyList } from './json-stream.js';
+import { workerUniqueVolumes } from '../plan/worker-parts.js';
+import { jsonPieces, rawLinesPieces, RawList } from './json-stream.js';
+import { CONTACT_JSON_PAD, contactTexts, csvLayout, type CsvLayout } from './contact-text.js';
+import { contactTextsOf, FORM, storedText, type ContactTextStore, type Form } from './contact-store.js';
+import { CONTACT_COLUMNS, contactRecord, type Cell } from './contact-columns.js';
+
+export { CONTACT_COLUMNS, contactRecord, type Cell, type ContactColumn } from './contact-columns.js';
 
 const round = (v: number, d: number) => (Number.isFinite(v) ? Number(v.toFixed(d)) : null);
 
@@ -95,10 +101,8 @@ export function* planTablePieces(plan: PlanResult, zone?: string): Generator<str
   const clipped = plan.contacts.some((c) => c.aosClipped || c.losClipped);
   yield* lines('');
   yield* lines(`All stations (station sum): ${summaryLine(plan.contacts, hasLink, hasExpected)}`);
-  const once = uniqueVolumes(
-    plan.spacecraft.map((s) => s.id),
-    plan.contacts,
-  );
+  const ids = plan.spacecraft.map((s) => s.id);
+  const once = workerUniqueVolumes(plan, ids) ?? uniqueVolumes(ids, plan.contacts);
   yield* lines(
     `Counted once per spacecraft radio (best station at each instant, union of windows): contact time ${formatDuration(once.reduce((s, u) => s + u.contactTimeS, 0))}` +
       (hasLink ? `, volume ${formatBits(once.reduce((s, u) => s + u.volumeBits, 0))}` : '') +
@@ -159,80 +163,6 @@ function indent(text: string): string {
     .join('\n');
 }
 
-type Cell = string | number | boolean | null;
-
-/** Seconds per MODCOD (or code), largest first, as "name=seconds;..." for one CSV cell. */
-function modcodCell(timeInModcodS: Record<string, number>): string {
-  return Object.entries(timeInModcodS)
-    .filter(([, t]) => t > 0)
-    .sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1))
-    .map(([name, t]) => `${name}=${t.toFixed(1)}`)
-    .join(';');
-}
-
-/** Light-time targets (ephemeris, lunar site and orbiter) carry the one-way light time and transmit times. */
-const hasLightTime = (c: Contact): boolean => c.lightTimeS !== undefined && Number.isFinite(c.lightTimeS);
-
-/**
- * The one definition of a contact record's columns, in order (contacts.csv's header and
- * plan.json's key order): who, then what the link gives (data start and end, volume,
- * closure margin, time per MODCOD), then the geometry as a trailing group. Link columns are
- * empty (CSV) or absent (JSON) for a contact without a link.
- */
-export const CONTACT_COLUMNS: readonly {
-  key: string;
-  /** Needs the contact's link. */
-  link?: true;
-  /** Present only when this holds (JSON: the key left out; CSV: the column when any contact has it). */
-  when?: (c: Contact) => boolean;
-  /** In plan.json only. */
-  jsonOnly?: true;
-  value: (c: Contact) => Cell;
-}[] = [
-  { key: 'station', value: (c) => c.stationId },
-  { key: 'spacecraft', value: (c) => c.spacecraftId },
-  { key: 'radio', link: true, value: (c) => c.link!.radioId },
-  { key: 'data_start_utc', link: true, value: (c) => isoUtc(c.link!.dataStartMs, 3) },
-  { key: 'data_end_utc', link: true, value: (c) => isoUtc(c.link!.dataEndMs, 3) },
-  { key: 'volume_bits', link: true, value: (c) => Math.round(c.link!.volumeBits) },
-  { key: 'expected_volume_bits', link: true, when: (c) => c.link?.expectedVolumeBits !== undefined, value: (c) => c.link!.expectedVolumeBits! },
-  {
-    key: 'expected_volume_bound_bits',
-    link: true,
-    jsonOnly: true,
-    when: (c) => c.link?.expectedVolumeBoundBits !== undefined,
-    value: (c) => Math.ceil(c.link!.expectedVolumeBoundBits!),
-  },
-  { key: 'closure_margin_db', link: true, value: (c) => round(c.link!.worstMarginDb, 2) },
-  { key: 'time_in_modcod_s', link: true, value: (c) => modcodCell(c.link!.timeInModcodS) },
-  { key: 'closed_s', link: true, value: (c) => round(c.link!.closedS, 1) },
-  { key: 'peak_rate_bps', link: true, value: (c) => Math.round(c.link!.peakRateBps) },
-  { key: 'closure_margin_at_utc', link: true, value: (c) => isoUtc(c.link!.worstMarginAtMs, 3) },
-  { key: 'closure_margin_at_elevation_deg', link: true, value: (c) => round(c.link!.worstMarginElevationDeg, 2) },
-  { key: 'aos_utc', value: (c) => isoUtc(c.aosMs, 3) },
-  { key: 'tca_utc', value: (c) => isoUtc(c.tcaMs, 3) },
-  { key: 'los_utc', value: (c) => isoUtc(c.losMs, 3) },
-  { key: 'duration_s', value: (c) => round(c.durationS, 1) },
-  { key: 'max_elevation_deg', value: (c) => round(c.maxElevationDeg, 2) },
-  { key: 'aos_azimuth_deg', value: (c) => round(c.aosAzimuthDeg, 2) },
-  { key: 'los_azimuth_deg', value: (c) => round(c.losAzimuthDeg, 2) },
-  { key: 'aos_clipped', value: (c) => c.aosClipped },
-  { key: 'los_clipped', value: (c) => c.losClipped },
-  { key: 'light_time_s', when: hasLightTime, value: (c) => round(c.lightTimeS!, 6) },
-  { key: 'aos_transmit_utc', when: hasLightTime, value: (c) => isoUtc(c.aosTransmitMs ?? Number.NaN, 3) },
-  { key: 'los_transmit_utc', when: hasLightTime, value: (c) => isoUtc(c.losTransmitMs ?? Number.NaN, 3) },
-];
-
-/** One contact as a plain record in CONTACT_COLUMNS order, fixed rounding (JSON and CSV share it). */
-export function contactRecord(c: Contact, forJson = false): Record<string, Cell> {
-  const rec: Record<string, Cell> = {};
-  for (const col of CONTACT_COLUMNS) {
-    if ((col.link && !c.link) || (col.when && !col.when(c)) || (col.jsonOnly && !forJson)) continue;
-    rec[col.key] = col.value(c);
-  }
-  return rec;
-}
-
 /** One contact as plan.json and contacts.jsonl hold it: its record, time per MODCOD and other radios. */
 export function contactJson(c: Contact): Record<string, unknown> {
   return {
@@ -253,18 +183,30 @@ export function contactJson(c: Contact): Record<string, unknown> {
   };
 }
 
-/** The contacts of the plan, made one at a time while written. */
-export const contactList = (plan: PlanResult): LazyList<Record<string, unknown>> => new LazyList(plan.contacts.length, (i) => contactJson(plan.contacts[i]!));
+function roundRecord(r: Record<string, number>, d: number): Record<string, number | null> {
+  const out: Record<string, number | null> = {};
+  for (const k of Object.keys(r).sort()) out[k] = round(r[k] ?? 0, d);
+  return out;
+}
+
+/** Contact i's text in one form: the worker's bytes when the plan carries them (report/batch-text.ts), else made here. */
+function textOf(plan: PlanResult, store: ContactTextStore | undefined, form: Form, i: number, layout?: CsvLayout): string | Uint8Array {
+  const stored = store ? storedText(store, form, i) : undefined;
+  if (stored) return stored;
+  const t = contactTexts(plan.contacts[i]!, layout);
+  return form === FORM.csv ? t.csv : form === FORM.json ? t.json : t.line;
+}
 
 /** plan.json in pieces (report/json-stream.ts): the same bytes as one JSON.stringify of it. */
-export function planJsonPieces(plan: PlanResult, extra: Record<string, unknown> = {}): Iterable<string> {
+export function planJsonPieces(plan: PlanResult, extra: Record<string, unknown> = {}): Iterable<string | Uint8Array> {
+  const store = contactTextsOf(plan);
   const doc = {
     span: { from_utc: isoUtc(plan.span.startMs, 3), to_utc: isoUtc(plan.span.endMs, 3) },
     availability_percent: plan.availabilityPercent,
     link_step_s: plan.linkStepS,
     spacecraft: plan.spacecraft,
     stations: plan.stations.map((st) => ({ id: st.id, name: st.name, time_zone: st.timeZone })),
-    contacts: contactList(plan),
+    contacts: new RawList(plan.contacts.length, (i) => textOf(plan, store, FORM.json, i), CONTACT_JSON_PAD),
     ...(plan.sunOutages ? { sun_outages: plan.sunOutages.map(sunOutageRecord) } : {}),
     ...extra,
     warnings: plan.warnings,
@@ -273,37 +215,21 @@ export function planJsonPieces(plan: PlanResult, extra: Record<string, unknown> 
 }
 
 /** contacts.jsonl: one contact per line, the same record as in plan.json. */
-export function contactsJsonLinesPieces(plan: PlanResult): Iterable<string> {
-  return jsonLinesPieces(contactList(plan));
-}
-
-function roundRecord(r: Record<string, number>, d: number): Record<string, number | null> {
-  const out: Record<string, number | null> = {};
-  for (const k of Object.keys(r).sort()) out[k] = round(r[k] ?? 0, d);
-  return out;
-}
-
-/** A CSV field (RFC 4180): quoted when it holds a comma, a quote or a line break. */
-function csvField(v: Cell | undefined): string {
-  if (v === null || v === undefined) return '';
-  if (typeof v === 'boolean') return v ? 'true' : 'false';
-  if (typeof v === 'number') return String(v);
-  return /[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+export function contactsJsonLinesPieces(plan: PlanResult): Iterable<string | Uint8Array> {
+  const store = contactTextsOf(plan);
+  return rawLinesPieces(new RawList(plan.contacts.length, (i) => textOf(plan, store, FORM.line, i), ''));
 }
 
 /** contacts.csv in pieces, row by row: the columns of CONTACT_COLUMNS some contact has, in its order. */
-export function* planCsvPieces(plan: PlanResult): Generator<string> {
-  const hasLink = plan.contacts.some((c) => c.link !== undefined);
-  const columns = CONTACT_COLUMNS.filter((col) => !col.jsonOnly && (hasLink || !col.link) && (!col.when || plan.contacts.some(col.when)));
-  yield `${columns.map((col) => col.key).join(',')}\n`;
-  for (const c of plan.contacts) {
-    let row = '';
-    for (let j = 0; j < columns.length; j++) {
-      const col = columns[j]!;
-      if (j > 0) row += ',';
-      if (!(col.link && !c.link) && !(col.when && !col.when(c))) row += csvField(col.value(c));
-    }
-    yield `${row}\n`;
+export function* planCsvPieces(plan: PlanResult): Generator<string | Uint8Array> {
+  const layout = csvLayout(plan.contacts);
+  const store = contactTextsOf(plan);
+  // a worker's rows are used where its batch had the same columns as the whole plan
+  const sameLayout = store?.batches.map((b) => b?.csvHeader === layout.header);
+  yield layout.header;
+  for (let i = 0; i < plan.contacts.length; i++) {
+    const ok = store !== undefined && sameLayout![store.source[2 * i]!] === true;
+    yield ok ? textOf(plan, store, FORM.csv, i, layout) : contactTexts(plan.contacts[i]!, layout).csv;
   }
 }
 

@@ -11,7 +11,7 @@
  * process that no longer exists (src/report/outdir.ts) and says so.
  */
 import { lstatSync, mkdirSync, renameSync, rmSync, rmdirSync, createWriteStream } from 'node:fs';
-import { mkdir, open, writeFile } from 'node:fs/promises';
+import { mkdir, open, writeFile, type FileHandle } from 'node:fs/promises';
 import { hostname } from 'node:os';
 import { basename, dirname, join, relative } from 'node:path';
 import { OutputError } from '../errors.js';
@@ -20,16 +20,29 @@ export interface OutputFile {
   /** Path relative to the output folder. */
   name: string;
   /**
-   * The whole text, or its pieces in order (made while the file is written, so a large
-   * output never exists as one string: the pieces are gathered to WRITE_CHUNK_CHARS).
+   * The whole text, or its pieces in order (text, or UTF-8 bytes made elsewhere: a worker's
+   * rendered contacts), made while the file is written, so a large output never exists as
+   * one string: the pieces are gathered into WRITE_CHUNK_BYTES writes.
    */
-  content: string | Iterable<string> | Uint8Array;
+  content: string | Iterable<string | Uint8Array> | Uint8Array;
 }
 
-/** Characters gathered before one write of a streamed output. */
-export const WRITE_CHUNK_CHARS = 1 << 20;
+/** Bytes gathered before one write of a streamed output. */
+export const WRITE_CHUNK_BYTES = 1 << 20;
 
-/** Writes `content` to `path` (a new file): text as UTF-8, piece by piece for an iterable; bytes as they are. */
+/** Writes all of `bytes` at the file's current position. */
+async function writeAll(fh: FileHandle, bytes: Uint8Array): Promise<void> {
+  let at = 0;
+  while (at < bytes.length) {
+    const { bytesWritten } = await fh.write(bytes, at, bytes.length - at);
+    at += bytesWritten;
+  }
+}
+
+/**
+ * Writes `content` to `path` (a new file): text as UTF-8, piece by piece for an iterable
+ * (two chunks in turn: one is filled while the other is being written); bytes as they are.
+ */
 async function writeContent(path: string, content: OutputFile['content']): Promise<void> {
   if (typeof content === 'string' || content instanceof Uint8Array) {
     await writeFile(path, content);
@@ -37,15 +50,38 @@ async function writeContent(path: string, content: OutputFile['content']): Promi
   }
   const fh = await open(path, 'w');
   try {
-    let buf = '';
+    const chunks = [Buffer.allocUnsafe(WRITE_CHUNK_BYTES), Buffer.allocUnsafe(WRITE_CHUNK_BYTES)];
+    let turn = 0;
+    let chunk = chunks[0]!;
+    let pos = 0;
+    let pending: Promise<void> = Promise.resolve();
+    const flush = async (): Promise<void> => {
+      if (pos === 0) return;
+      await pending; // the other chunk is free again
+      pending = writeAll(fh, chunk.subarray(0, pos));
+      pending.catch(() => undefined); // awaited below; never an unhandled rejection meanwhile
+      turn = 1 - turn;
+      chunk = chunks[turn]!;
+      pos = 0;
+    };
     for (const piece of content) {
-      buf += piece;
-      if (buf.length >= WRITE_CHUNK_CHARS) {
-        await fh.writeFile(buf, 'utf8'); // the whole piece, from the current position
-        buf = '';
+      const most = typeof piece === 'string' ? piece.length * 3 : piece.length;
+      if (pos + most > chunk.length) {
+        await flush();
+        if (most > chunk.length) {
+          await pending;
+          await writeAll(fh, typeof piece === 'string' ? Buffer.from(piece, 'utf8') : piece);
+          continue;
+        }
+      }
+      if (typeof piece === 'string') pos += chunk.write(piece, pos, 'utf8');
+      else {
+        chunk.set(piece, pos);
+        pos += piece.length;
       }
     }
-    if (buf.length > 0) await fh.writeFile(buf, 'utf8'); // the whole piece, from the current position
+    await flush();
+    await pending;
   } finally {
     await fh.close();
   }
