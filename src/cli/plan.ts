@@ -56,6 +56,7 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
           renderTexts: everyWindow && (opts.write || opts.format !== 'table'),
           // and their spacecraft's own figures: volume counted once, margin rows for the report
           weekParts: shard ? 'none' : opts.write ? 'margins' : everyWindow ? 'unique' : 'none',
+          slimContacts: everyWindow,
         }),
       );
       progress.end();

@@ -42,6 +42,11 @@ export interface ParallelOptions extends PlanOptions {
    * 'unique' volumes, or 'margins' too (for the report).
    */
   weekParts?: 'none' | 'unique' | 'margins';
+  /**
+   * With weekParts: every window will be shown as found (no schedule, no booking), so the
+   * contacts may cross without their rate step functions (only the unique volumes read them).
+   */
+  slimContacts?: boolean;
 }
 
 export const MIN_SPACECRAFT_PER_THREAD = 4;
@@ -72,7 +77,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Para
   const threads = threadsFor(scenario.spacecraft.length, maxThreads);
   const url = workerUrl();
   if (url === undefined || inlineWorthy(scenario)) return runPlan(scenario, span, opts);
-  const { onProgress, renderTexts, weekParts, ...plain } = opts;
+  const { onProgress, renderTexts, weekParts, slimContacts, ...plain } = opts;
   // batches small enough to spread evenly (several per thread), at most MAX_BATCH_SPACECRAFT
   const size = Math.max(1, Math.min(MAX_BATCH_SPACECRAFT, Math.ceil(scenario.spacecraft.length / (4 * threads))));
   const batches: Spacecraft[][] = [];
@@ -98,7 +103,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Para
       };
       const workers = Math.min(threads, batches.length);
       for (let t = 0; t < workers; t++) {
-        const w = new Worker(url, { workerData: { scenario: base, span, opts: plain, renderTexts: Boolean(renderTexts), weekParts: weekParts ?? 'none' } });
+        const w = new Worker(url, { workerData: { scenario: base, span, opts: plain, renderTexts: Boolean(renderTexts), weekParts: weekParts ?? 'none', slimContacts: Boolean(slimContacts) } });
         runningWorkers.add(w);
         let retired = false;
         const feed = (): void => {

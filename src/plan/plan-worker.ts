@@ -9,7 +9,7 @@
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { runPlanWithGeometry, type PlanOptions } from './run.js';
-import { batchParts } from './worker-parts.js';
+import { batchParts, withoutRatePieces } from './worker-parts.js';
 import { serializeError } from '../errors.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import { newLinkTableCache } from './link.js';
@@ -25,6 +25,8 @@ interface Job {
   renderTexts: boolean;
   /** Make each batch's own figures too (plan/worker-parts.ts); 'margins': with the margin rows. */
   weekParts: 'none' | 'unique' | 'margins';
+  /** Leave the rate step functions out of the reply (plan/worker-parts.ts withoutRatePieces): every window is shown as found. */
+  slimContacts: boolean;
 }
 
 const job = workerData as Job;
@@ -42,7 +44,10 @@ parentPort?.on('message', (msg: BatchJob) => {
       reply.texts = renderBatchTexts(result);
       transfer = transferablesOf(reply.texts);
     }
-    if (job.weekParts !== 'none') reply.parts = batchParts(scenario, result, geometry, job.weekParts === 'margins');
+    if (job.weekParts !== 'none') {
+      reply.parts = batchParts(scenario, result, geometry, job.weekParts === 'margins');
+      if (job.slimContacts) reply.result = withoutRatePieces(result);
+    }
   } catch (err) {
     reply = { ok: false, error: serializeError(err) };
     transfer = [];

@@ -47,6 +47,29 @@ const HEAD =
   '<tr><th>spacecraft</th><th>data start</th><th>data end</th><th>volume</th><th>closure margin dB</th><th class="text">time per MODCOD</th>' +
   '<th class="geo">AOS</th><th>LOS</th><th>duration</th><th>max el deg</th></tr></thead>';
 
+/**
+ * The first `k` items of a stable sort of `items` by `cmp`, without sorting them all (a
+ * fleet's contacts are counted in hundreds of thousands, the list shows a few): a sorted
+ * window of k kept by insertion, an item placed after its equals as a stable sort would.
+ */
+export function firstInOrder<T>(items: readonly T[], k: number, cmp: (a: T, b: T) => number): T[] {
+  const best: T[] = [];
+  if (k <= 0) return best;
+  for (const x of items) {
+    if (best.length === k && cmp(x, best[k - 1]!) >= 0) continue;
+    let lo = 0;
+    let hi = best.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (cmp(x, best[mid]!) >= 0) lo = mid + 1;
+      else hi = mid;
+    }
+    best.splice(lo, 0, x);
+    if (best.length > k) best.pop();
+  }
+  return best;
+}
+
 export function renderContactList(plan: PlanResult): string {
   const days = utcDays(plan.span.startMs, plan.span.endMs);
   const groups = new Map<string, Contact[]>();
@@ -90,10 +113,11 @@ export function renderContactList(plan: PlanResult): string {
       );
     }
   }
-  const top = plan.contacts
-    .filter((c) => c.link)
-    .sort((a, b) => b.link!.volumeBits - a.link!.volumeBits || a.aosMs - b.aosMs)
-    .slice(0, TOP_CONTACTS);
+  const top = firstInOrder(
+    plan.contacts.filter((c) => c.link),
+    TOP_CONTACTS,
+    (a, b) => b.link!.volumeBits - a.link!.volumeBits || a.aosMs - b.aosMs,
+  );
   return [
     `<p class="note bound"><strong>${plan.contacts.length} contacts</strong>: above ${CONTACT_DETAIL_LIMIT} the list shows the totals of each station and day and the ${TOP_CONTACTS} highest-volume contacts, not every contact; contacts.csv and plan.json list every one.</p>`,
     '<h3>Per station and day</h3>',
