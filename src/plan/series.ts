@@ -151,6 +151,12 @@ export function highestVolumeContacts(plan: PlanResult): Contact[] {
   });
 }
 
+/** The Sun and the Moon over `span`, made on the first call and kept. */
+export function lazySky(span: Span): () => SkyBodies {
+  let sky: SkyBodies | undefined;
+  return () => (sky ??= new SkyBodies(span));
+}
+
 /**
  * Series for the given contacts of a plan made from `scenario` over `span`:
  * builds each pair's target, site and prepared link as the plan did
@@ -161,10 +167,11 @@ export function seriesForContacts(
   span: Span,
   contacts: readonly Contact[],
   maxPoints: number = DEFAULT_SERIES_POINTS,
+  /** The Sun and the Moon over the span, made when first needed (callers with several calls share one). */
+  skyOfSpan: () => SkyBodies = lazySky(span),
 ): ContactSeries[] {
   const out: ContactSeries[] = [];
   const targets = new Map<string, Target>();
-  const sky = new SkyBodies(span);
   for (const c of contacts) {
     const sc = scenario.spacecraft.find((s) => s.id === c.spacecraftId);
     const station = scenario.stations.find((s) => s.id === c.stationId);
@@ -178,7 +185,7 @@ export function seriesForContacts(
     const site = makeSite(station.id, station.latitudeDeg, station.longitudeDeg, station.heightKm);
     const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station));
     const stepS = seriesStepS(c.durationS, maxPoints);
-    out.push(sampleContact(c, target, site, link, scenario.link.acquisitionTimeS, stepS, sky));
+    out.push(sampleContact(c, target, site, link, scenario.link.acquisitionTimeS, stepS, skyOfSpan()));
   }
   return out;
 }
