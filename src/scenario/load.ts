@@ -44,7 +44,39 @@ export interface ScenarioFiles {
 
 export const DEFAULT_AVAILABILITY_PERCENT = 99.5;
 
+/**
+ * Element-set files read and parsed once per load, by kind and resolved path: a fleet of a
+ * thousand spacecraft naming one TLE file by catalogue number would otherwise parse it a
+ * thousand times. Emptied when the load ends. (Element sets are plain data, never changed
+ * after parsing, so spacecraft may share them.)
+ */
+const elementFiles = new Map<string, { text: ReturnType<typeof readText>; parsed?: ReturnType<typeof parseTleText> | ReturnType<typeof parseOmm> }>();
+
+function elementFile(
+  kind: 'tle' | 'omm',
+  target: string,
+  parse: (text: string) => ReturnType<typeof parseTleText> | ReturnType<typeof parseOmm>,
+): { text: ReturnType<typeof readText>; parsed?: ReturnType<typeof parseTleText> | ReturnType<typeof parseOmm> } {
+  const key = `${kind}:${target}`;
+  let e = elementFiles.get(key);
+  if (!e) {
+    const text = readText(target, '');
+    e = text.ok ? { text, parsed: parse(text.value) } : { text };
+    elementFiles.set(key, e);
+  }
+  return e;
+}
+
 export function loadScenario(files: ScenarioFiles): Scenario {
+  elementFiles.clear();
+  try {
+    return loadScenarioOnce(files);
+  } finally {
+    elementFiles.clear();
+  }
+}
+
+function loadScenarioOnce(files: ScenarioFiles): Scenario {
   const problems: Problem[] = [];
   const notices: Notice[] = [];
   const referenced: string[] = [];
@@ -278,18 +310,18 @@ function toOrbit(orbit: SpacecraftEntry['orbit'], file: string, path: string, pr
   else if (orbit.tleFile !== undefined) {
     const target = resolveBeside(file, orbit.tleFile);
     referenced.push(target);
-    const text = readText(target, '');
+    const { text, parsed } = elementFile('tle', target, (t) => parseTleText(t, target, ''));
     if (!text.ok) appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.tleFile)` })));
-    else sets = collect(named(parseTleText(text.value, target, ''), `${file}: ${path}.tleFile`), problems);
+    else sets = collect(named(parsed!, `${file}: ${path}.tleFile`), problems);
   } else if (orbit.omm !== undefined) {
     const text = typeof orbit.omm === 'string' ? orbit.omm : JSON.stringify(orbit.omm);
     sets = collect(parseOmm(text, file, `${path}.omm`, typeof orbit.omm === 'string' ? undefined : 'json'), problems, notices);
   } else if (orbit.ommFile !== undefined) {
     const target = resolveBeside(file, orbit.ommFile);
     referenced.push(target);
-    const text = readText(target, '');
+    const { text, parsed } = elementFile('omm', target, (t) => parseOmm(t, target, ''));
     if (!text.ok) appendAll(problems, text.problems.map((p) => ({ ...p, message: `${p.message} (named by ${file}: ${path}.ommFile)` })));
-    else sets = collect(named(parseOmm(text.value, target, ''), `${file}: ${path}.ommFile`), problems, notices);
+    else sets = collect(named(parsed!, `${file}: ${path}.ommFile`), problems, notices);
   }
   if (orbit.catalogNumber !== undefined) {
     const wanted = String(orbit.catalogNumber).trim().replace(/^0+(?=.)/, '');
