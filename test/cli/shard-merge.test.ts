@@ -46,10 +46,18 @@ describe('single thread, worker threads, shards + merge', () => {
     writeFileSync(files.networkFile, JSON.stringify(network));
     const scenarioFlags = ['--spacecraft', files.spacecraftFile, '--network', files.networkFile];
     const single = join(work, 'single');
-    const code = await run(['plan', ...scenarioFlags, '--out', single, '--format', 'csv'], { out: () => {}, err: () => {}, isTty: false, nowMs: () => 0 });
+    let singleOut = '';
+    const code = await run(['plan', ...scenarioFlags, '--out', single, '--format', 'csv'], { out: (t) => (singleOut += t), err: () => {}, isTty: false, nowMs: () => 0 });
     expect(code).toBe(0);
     const threads = join(work, 'threads');
-    expect(dist(['plan', ...scenarioFlags, '--out', threads, '--format', 'csv']).code).toBe(0);
+    const threadRun = dist(['plan', ...scenarioFlags, '--out', threads, '--format', 'csv']);
+    expect(threadRun.code).toBe(0);
+    // what the workers rendered reaches stdout too: the CSV and, without files, the JSON
+    expect(threadRun.out).toBe(singleOut);
+    expect(threadRun.out).toBe(readFileSync(join(single, 'contacts.csv'), 'utf8'));
+    const jsonRun = dist(['plan', ...scenarioFlags, '--no-write', '--format', 'json']);
+    expect(jsonRun.code).toBe(0);
+    expect(jsonRun.out).toBe(readFileSync(join(single, 'plan.json'), 'utf8'));
     const shardDirs: string[] = [];
     for (let k = 1; k <= 3; k++) {
       const d = join(work, `shard-${k}`);
