@@ -10,7 +10,10 @@ import { addCommonOptions, parseShardFlag, prepareOutput, readCommonOptions, spa
 import { DEFAULT_LINK_STEP_S } from '../plan/link.js';
 import { shardScenario } from '../plan/shard.js';
 import { SHARD_FORMAT, shardFileContent, shardFileName, type ShardHeader } from '../report/shard.js';
-import { writeOutputs } from '../report/write.js';
+import { makeTempDir, removeTempDir, writeOutputs } from '../report/write.js';
+import { releaseContactTexts } from '../report/contact-store.js';
+import { existsSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { packageVersion } from '../scenario/paths.js';
 import { UsageError } from '../errors.js';
 import type { CliIo } from './io.js';
@@ -48,38 +51,47 @@ export function registerPlan(program: Command, io: CliIo, setExit: SetExit): voi
       assertPreflight(scenario, span); // file and field of a model-range problem, before any work
       const progress = progressLine(io, 'plan');
       const everyWindow = !shard && !rules && !raw.schedule && !raw.oneStationAtATime;
-      const unscheduled = await withNamedProblems(scenario, span, () =>
-        runPlanParallel(shard ? shardScenario(scenario, shard) : scenario, span, {
-          ...(opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}),
-          onProgress: countHook(progress, 'stage'),
-          // the workers render the contacts' texts when every window is shown and written or printed whole
-          renderTexts: everyWindow && (opts.write || opts.format !== 'table'),
-          // and their spacecraft's own figures: volume counted once, margin rows for the report
-          weekParts: shard ? 'none' : opts.write ? 'margins' : everyWindow ? 'unique' : 'none',
-          slimContacts: everyWindow,
-        }),
-      );
-      progress.end();
-      if (shard) {
-        const header: ShardHeader = {
-          format: SHARD_FORMAT,
-          version: packageVersion(),
-          shard,
-          fromMs: span.startMs,
-          toMs: span.endMs,
-          linkStepS: unscheduled.linkStepS,
-          availabilityPercent: unscheduled.availabilityPercent,
-          spacecraft: unscheduled.spacecraft.map((s) => s.id),
-        };
-        const [path] = await writeOutputs(opts.outDir, [{ name: shardFileName(shard), content: shardFileContent(header, unscheduled) }]);
-        for (const w of unscheduled.warnings) io.err(`warning: ${w}\n`);
-        io.out(`wrote ${path}: shard ${shard.index} of ${shard.count}, ${header.spacecraft.length} spacecraft, ${unscheduled.contacts.length} contacts; combine all ${shard.count} with passbudget merge\n`);
-        setExit(0);
-        return;
+      const renderTexts = everyWindow && (opts.write || opts.format !== 'table');
+      // the workers' texts wait on disk, beside the outputs (or in the system's temp folder), until written
+      const spillDir = renderTexts ? makeTempDir(opts.write && existsSync(opts.outDir) ? opts.outDir : tmpdir(), 'contact-texts') : undefined;
+      try {
+        const unscheduled = await withNamedProblems(scenario, span, () =>
+          runPlanParallel(shard ? shardScenario(scenario, shard) : scenario, span, {
+            ...(opts.stepS !== undefined ? { linkStepS: opts.stepS } : {}),
+            onProgress: countHook(progress, 'stage'),
+            // the workers render the contacts' texts when every window is shown and written or printed whole
+            renderTexts,
+            ...(spillDir !== undefined ? { spillDir } : {}),
+            // and their spacecraft's own figures: volume counted once, margin rows for the report
+            weekParts: shard ? 'none' : opts.write ? 'margins' : everyWindow ? 'unique' : 'none',
+            slimContacts: everyWindow,
+          }),
+        );
+        progress.end();
+        if (shard) {
+          const header: ShardHeader = {
+            format: SHARD_FORMAT,
+            version: packageVersion(),
+            shard,
+            fromMs: span.startMs,
+            toMs: span.endMs,
+            linkStepS: unscheduled.linkStepS,
+            availabilityPercent: unscheduled.availabilityPercent,
+            spacecraft: unscheduled.spacecraft.map((s) => s.id),
+          };
+          const [path] = await writeOutputs(opts.outDir, [{ name: shardFileName(shard), content: shardFileContent(header, unscheduled) }]);
+          for (const w of unscheduled.warnings) io.err(`warning: ${w}\n`);
+          io.out(`wrote ${path}: shard ${shard.index} of ${shard.count}, ${header.spacecraft.length} spacecraft, ${unscheduled.contacts.length} contacts; combine all ${shard.count} with passbudget merge\n`);
+          setExit(0);
+          return;
+        }
+        const booked = rules ? await runBooking(unscheduled, scenario, rules) : undefined;
+        const week = planWeek(scenario, unscheduled, { dayMode, schedule: Boolean(raw.schedule), oneStationAtATime: Boolean(raw.oneStationAtATime) }, booked);
+        await emitWeek(io, opts, week, () => weekReportParts(scenario, span, week), Boolean(raw.stats), booked);
+        releaseContactTexts(unscheduled);
+        setExit(booked ? booked.exitCode : 0);
+      } finally {
+        if (spillDir !== undefined) removeTempDir(spillDir);
       }
-      const booked = rules ? await runBooking(unscheduled, scenario, rules) : undefined;
-      const week = planWeek(scenario, unscheduled, { dayMode, schedule: Boolean(raw.schedule), oneStationAtATime: Boolean(raw.oneStationAtATime) }, booked);
-      await emitWeek(io, opts, week, () => weekReportParts(scenario, span, week), Boolean(raw.stats), booked);
-      setExit(booked ? booked.exitCode : 0);
     });
 }

@@ -37,6 +37,8 @@ export interface ParallelOptions extends PlanOptions {
    * the merged plan for the outputs to copy (set when the outputs will be written or printed).
    */
   renderTexts?: boolean;
+  /** With renderTexts: a folder for the workers to spill the texts to (report/write.ts makeTempDir), else they cross in memory. */
+  spillDir?: string;
   /**
    * Have each worker make its spacecraft's own figures of the week (plan/worker-parts.ts):
    * 'unique' volumes, or 'margins' too (for the report).
@@ -77,7 +79,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Para
   const threads = threadsFor(scenario.spacecraft.length, maxThreads);
   const url = workerUrl();
   if (url === undefined || inlineWorthy(scenario)) return runPlan(scenario, span, opts);
-  const { onProgress, renderTexts, weekParts, slimContacts, ...plain } = opts;
+  const { onProgress, renderTexts, spillDir, weekParts, slimContacts, ...plain } = opts;
   // batches small enough to spread evenly (several per thread), at most MAX_BATCH_SPACECRAFT
   const size = Math.max(1, Math.min(MAX_BATCH_SPACECRAFT, Math.ceil(scenario.spacecraft.length / (4 * threads))));
   const batches: Spacecraft[][] = [];
@@ -103,7 +105,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Para
       };
       const workers = Math.min(threads, batches.length);
       for (let t = 0; t < workers; t++) {
-        const w = new Worker(url, { workerData: { scenario: base, span, opts: plain, renderTexts: Boolean(renderTexts), weekParts: weekParts ?? 'none', slimContacts: Boolean(slimContacts) } });
+        const w = new Worker(url, { workerData: { scenario: base, span, opts: plain, renderTexts: Boolean(renderTexts), ...(spillDir !== undefined ? { spillDir } : {}), weekParts: weekParts ?? 'none', slimContacts: Boolean(slimContacts) } });
         runningWorkers.add(w);
         let retired = false;
         const feed = (): void => {
@@ -142,8 +144,8 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Para
     terminateWorkers(); // the first error wins; the other batches' work is moot
     throw err;
   }
-  const { plan, source } = mergePlansWithSource(scenario, span, parts);
-  if (renderTexts) attachContactTexts(plan, { batches: texts, source });
+  const { plan, source, station } = mergePlansWithSource(scenario, span, parts);
+  if (renderTexts) attachContactTexts(plan, { batches: texts, source, station, stations: scenario.stations.length });
   if (figures.every((f) => f !== undefined)) attachPlanParts(plan, scenario, figures as BatchParts[]);
   return plan;
 }
@@ -172,7 +174,7 @@ export function mergePlans(scenario: Scenario, span: Span, parts: PlanResult[]):
  * mergePlans, with where each merged contact came from: contact i is contact source[2i + 1]
  * of part source[2i]. The order is runPlan's (station, AOS, spacecraft; ties in part order).
  */
-export function mergePlansWithSource(scenario: Scenario, span: Span, parts: PlanResult[]): { plan: PlanResult; source: Uint32Array } {
+export function mergePlansWithSource(scenario: Scenario, span: Span, parts: PlanResult[]): { plan: PlanResult; source: Uint32Array; station: Uint32Array } {
   const stationOrder = new Map(scenario.stations.map((s, i) => [s.id, i]));
   const scOrder = new Map(scenario.spacecraft.map((s, i) => [s.id, i]));
   let n = 0;
@@ -196,11 +198,13 @@ export function mergePlansWithSource(scenario: Scenario, span: Span, parts: Plan
   order.sort((a, b) => st[a]! - st[b]! || all[a]!.aosMs - all[b]!.aosMs || sc[a]! - sc[b]! || a - b);
   const contacts: PlanResult['contacts'] = new Array(n);
   const source = new Uint32Array(2 * n);
+  const station = new Uint32Array(n);
   for (let i = 0; i < n; i++) {
     const o = order[i]!;
     contacts[i] = all[o]!;
     source[2 * i] = from[2 * o]!;
     source[2 * i + 1] = from[2 * o + 1]!;
+    station[i] = st[o]!;
   }
   const { warnings, origins } = mergeWarnings(scenario, parts);
   const stats = { propagations: 0, linkSamples: 0 };
@@ -210,7 +214,7 @@ export function mergePlansWithSource(scenario: Scenario, span: Span, parts: Plan
   }
   const merged = planResult(scenario, span, parts[0]?.linkStepS ?? 0, contacts, warnings, stats, origins);
   if (parts.some((p) => p.sunOutages)) merged.sunOutages = sortOutages(scenario, parts.flatMap((p) => p.sunOutages ?? []));
-  return { plan: merged, source };
+  return { plan: merged, source, station };
 }
 
 /**

@@ -8,6 +8,7 @@
  * a user's mistake stays one line and exit 2, whichever thread found it.
  */
 import { parentPort, workerData } from 'node:worker_threads';
+import { join } from 'node:path';
 import { runPlanWithGeometry, type PlanOptions } from './run.js';
 import { batchParts, withoutRatePieces } from './worker-parts.js';
 import { serializeError } from '../errors.js';
@@ -23,6 +24,8 @@ interface Job {
   opts: Omit<PlanOptions, 'onProgress'>;
   /** Render each batch's contact texts too (report/batch-text.ts). */
   renderTexts: boolean;
+  /** Where the texts are spilled (one file per batch), when set. */
+  spillDir?: string;
   /** Make each batch's own figures too (plan/worker-parts.ts); 'margins': with the margin rows. */
   weekParts: 'none' | 'unique' | 'margins';
   /** Leave the rate step functions out of the reply (plan/worker-parts.ts withoutRatePieces): every window is shown as found. */
@@ -41,7 +44,7 @@ parentPort?.on('message', (msg: BatchJob) => {
     const { result, geometry } = runPlanWithGeometry(scenario, job.span, job.opts, tables);
     reply = { ok: true, batch: msg.batch, result };
     if (job.renderTexts) {
-      reply.texts = renderBatchTexts(result);
+      reply.texts = renderBatchTexts(result, job.spillDir !== undefined ? join(job.spillDir, `batch-${msg.batch}.bin`) : undefined);
       transfer = transferablesOf(reply.texts);
     }
     if (job.weekParts !== 'none') {

@@ -4,8 +4,12 @@
  * into byte buffers that cross to the main thread without a copy (transferable), so a
  * large fleet's records are formatted on every core. The main thread then only copies
  * bytes in output order (report/plan.ts, report/calendar.ts take them from the store,
- * report/contact-store.ts).
+ * report/contact-store.ts). From the CLI the bytes are spilled to a temp file per batch
+ * (in a temp folder of the run) and read back in output order: the texts of a large fleet
+ * are gigabytes, more than the main thread should hold.
  */
+import { closeSync, openSync, writeSync } from 'node:fs';
+import { outputErrorOf, shownPath } from './write.js';
 import type { PlanResult } from '../plan/types.js';
 import { contactTexts, csvLayout } from './contact-text.js';
 import { contactUids, eventContext, eventText } from './calendar.js';
@@ -49,8 +53,11 @@ class ByteRun {
   }
 }
 
-/** Renders every contact of `plan` in every form (pure; the plan is not changed). */
-export function renderBatchTexts(plan: PlanResult): BatchTexts {
+/**
+ * Renders every contact of `plan` in every form (pure but for `spillFile`: when given, the
+ * forms' bytes are written there, one region after another, and only their offsets kept).
+ */
+export function renderBatchTexts(plan: PlanResult, spillFile?: string): BatchTexts {
   const n = plan.contacts.length;
   const layout = csvLayout(plan.contacts);
   // first guesses of the bytes per contact (a run grows when they are short)
@@ -65,14 +72,34 @@ export function renderBatchTexts(plan: PlanResult): BatchTexts {
     runs[FORM.line]!.push(t.line);
     runs[FORM.ics]!.push(eventText(ctx, c, uids[i]!));
   }
-  return { csvHeader: layout.header, forms: runs.map((r) => r.done()) };
+  const forms = runs.map((r) => r.done());
+  if (spillFile === undefined) return { csvHeader: layout.header, forms };
+  try {
+    const fd = openSync(spillFile, 'w');
+    try {
+      let at = 0;
+      const spilled: FormBytes[] = forms.map((f) => {
+        const bytes = f.bytes!;
+        for (let done = 0; done < bytes.length; ) done += writeSync(fd, bytes, done, bytes.length - done);
+        const region = { offsets: f.offsets, at };
+        at += bytes.length;
+        return region;
+      });
+      return { csvHeader: layout.header, forms: spilled, file: spillFile };
+    } finally {
+      closeSync(fd);
+    }
+  } catch (err) {
+    // a full disk names the temp file (in the run's temp folder, removed with the run)
+    throw outputErrorOf(err, shownPath(spillFile)) ?? err;
+  }
 }
 
 /** The buffers to hand to postMessage's transfer list. */
 export function transferablesOf(texts: BatchTexts): ArrayBuffer[] {
   const out = new Set<ArrayBuffer>();
   for (const f of texts.forms) {
-    out.add(f.bytes.buffer as ArrayBuffer);
+    if (f.bytes) out.add(f.bytes.buffer as ArrayBuffer);
     out.add(f.offsets.buffer as ArrayBuffer);
   }
   return [...out];

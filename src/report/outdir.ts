@@ -104,6 +104,18 @@ export function removeStaleTemps(dir: string): { files: number; restored: number
     }
     for (const e of entries) {
       if (e.isDirectory()) {
+        // a stopped run's temp folder (its spilled contact texts) goes whole
+        const t = TEMP_NAME.exec(e.name);
+        if (t && t[2] === host && t[4] === 'tmp' && !processAlive(Number(t[3]))) {
+          try {
+            rmSync(join(d, e.name), { recursive: true, force: true });
+            files++;
+            pids.add(Number(t[3]));
+          } catch {
+            // cannot remove it: leave it
+          }
+          continue;
+        }
         if (depth > 0) scan(join(d, e.name), depth - 1);
         continue;
       }

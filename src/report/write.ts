@@ -104,6 +104,28 @@ function besideWith(path: string, kind: 'tmp' | 'old'): string {
 
 /** Temp files being written now, so an interrupted run can remove them. */
 const openTemps = new Set<string>();
+/** Temp folders (a run's spilled contact texts: report/contact-store.ts) removed the same way. */
+const openTempDirs = new Set<string>();
+
+/**
+ * A temp folder of this run under `base` (named like a temp file, so a later run removes
+ * it when this one was killed: outdir.ts); removed by removeTempDir, or on a signal.
+ */
+export function makeTempDir(base: string, what: string): string {
+  const dir = join(base, `.${what}.${RUN_TAG}.tmp`);
+  try {
+    mkdirSync(dir, { recursive: true });
+  } catch (err) {
+    throw outputErrorOf(err, dir) ?? err;
+  }
+  openTempDirs.add(dir);
+  return dir;
+}
+
+export function removeTempDir(dir: string): void {
+  rmSync(dir, { recursive: true, force: true });
+  openTempDirs.delete(dir);
+}
 
 /**
  * Removes every temp file still being written (the CLI calls this on SIGINT/SIGTERM
@@ -113,6 +135,8 @@ const openTemps = new Set<string>();
 export function removeOpenTemps(): void {
   for (const t of openTemps) rmSync(t, { force: true });
   openTemps.clear();
+  for (const d of openTempDirs) rmSync(d, { recursive: true, force: true });
+  openTempDirs.clear();
 }
 
 /** A failed write or rename as one line: which path and what went wrong. */
