@@ -25,6 +25,7 @@ const MODULES: readonly (readonly [readonly string[], () => Promise<Register>])[
 
 export async function registerCommands(program: Command, io: CliIo, setExit: SetExit, argv: readonly string[] = []): Promise<void> {
   const first = argv[0];
+  if (argv.length === 1 && (first === '--version' || first === '-V')) return; // the version needs no command
   const named = MODULES.filter(([names]) => first !== undefined && names.includes(first));
   const chosen = named.length > 0 ? named : MODULES;
   const registers = await Promise.all(chosen.map(([, load]) => load()));

@@ -18,7 +18,7 @@
  * where the segment is used (default START_TIME / STOP_TIME).
  * Units: epoch ms (UTC), km, km/s.
  */
-import { XMLParser, XMLValidator } from 'fast-xml-parser';
+import { xmlLib } from '../lazy.js';
 import type { Problem } from '../errors.js';
 import type { Ephemeris, EphemerisSegment } from './types.js';
 
@@ -262,9 +262,9 @@ const asList = (v: unknown): unknown[] => (v === undefined ? [] : Array.isArray(
 
 function readXml(text: string, report: (path: string, message: string) => void): RawSegment[] {
   if (/<!(DOCTYPE|ENTITY)/i.test(text)) return fail(report, '', 'a <!DOCTYPE or <!ENTITY declaration; valid: an NDM/XML OEM without them');
-  const valid = XMLValidator.validate(text);
+  const valid = xmlLib().XMLValidator.validate(text);
   if (valid !== true) return fail(report, `line ${valid.err.line}`, `not well-formed XML: ${valid.err.msg}`);
-  const parser = new XMLParser({
+  const parser = new (xmlLib().XMLParser)({
     ignoreAttributes: true,
     removeNSPrefix: true,
     parseTagValue: false,
