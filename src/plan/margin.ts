@@ -108,6 +108,8 @@ export function marginGatePasses(rows: readonly MarginRow[]): boolean {
 export interface MarginOptions {
   radiusSampleS?: number;
   toleranceDeg?: number;
+  /** Atmosphere tables kept across calls (keyed by their inputs: a worker's batches share them). */
+  tables?: Map<string, AtmosphereTable>;
 }
 
 /** Slant range (km) at elevation e of a target at geocentric distance r from a station at R. */
@@ -263,7 +265,7 @@ export function marginRows(scenario: Scenario, plan: PlanResult, opts: MarginOpt
     if (list) list.push(c);
     else byPair.set(key, [c]);
   }
-  const tables = new Map<string, AtmosphereTable>();
+  const tables = opts.tables ?? new Map<string, AtmosphereTable>();
   scenario.stations.forEach((station, i) => {
     const site = geometry.sites[i]!;
     const stationRadiusKm = Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]);

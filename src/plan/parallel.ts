@@ -54,6 +54,8 @@ export interface ParallelOptions extends PlanOptions {
 export const MIN_SPACECRAFT_PER_THREAD = 4;
 /** Most spacecraft in one batch (bounds what a worker holds and sends at once). */
 export const MAX_BATCH_SPACECRAFT = 16;
+/** Fewest spacecraft in a batch (but the last): a batch has a set-up cost of its own. */
+export const MIN_BATCH_SPACECRAFT = 2;
 
 /** Threads worth starting for this many spacecraft on this machine. */
 export function threadsFor(spacecraftCount: number, maxThreads = availableParallelism()): number {
@@ -70,6 +72,23 @@ export function inlineWorthy(scenario: Scenario): boolean {
   return scenario.spacecraft.length <= INLINE_MAX_SPACECRAFT && scenario.spacecraft.every((s) => s.radios.length === 0);
 }
 
+/**
+ * The fleet cut into batches of consecutive spacecraft, handed out in order: each a share
+ * of what is left (a quarter of it per thread, MIN_BATCH_SPACECRAFT to MAX_BATCH_SPACECRAFT), so the
+ * batches shrink towards the end and the threads finish together instead of one waiting
+ * on the other's last large batch.
+ */
+export function batchesOf<T>(fleet: readonly T[], threads: number): T[][] {
+  const batches: T[][] = [];
+  for (let i = 0; i < fleet.length; ) {
+    const size = Math.max(MIN_BATCH_SPACECRAFT, Math.min(MAX_BATCH_SPACECRAFT, Math.ceil((fleet.length - i) / (4 * threads))));
+    batches.push(fleet.slice(i, i + size));
+    i += size;
+  }
+  if (batches.length === 0) batches.push([]);
+  return batches;
+}
+
 function workerUrl(): URL | undefined {
   const url = new URL('./plan-worker.js', import.meta.url);
   return import.meta.url.endsWith('.js') ? url : undefined;
@@ -80,11 +99,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Para
   const url = workerUrl();
   if (url === undefined || inlineWorthy(scenario)) return runPlan(scenario, span, opts);
   const { onProgress, renderTexts, spillDir, weekParts, slimContacts, ...plain } = opts;
-  // batches small enough to spread evenly (several per thread), at most MAX_BATCH_SPACECRAFT
-  const size = Math.max(1, Math.min(MAX_BATCH_SPACECRAFT, Math.ceil(scenario.spacecraft.length / (4 * threads))));
-  const batches: Spacecraft[][] = [];
-  for (let i = 0; i < scenario.spacecraft.length; i += size) batches.push(scenario.spacecraft.slice(i, i + size));
-  if (batches.length === 0) batches.push([]);
+  const batches = batchesOf(scenario.spacecraft, threads);
   const parts: PlanResult[] = new Array<PlanResult>(batches.length);
   const texts: (BatchTexts | undefined)[] = new Array<BatchTexts | undefined>(batches.length);
   const figures: (BatchParts | undefined)[] = new Array<BatchParts | undefined>(batches.length);

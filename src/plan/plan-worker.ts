@@ -11,6 +11,7 @@ import { parentPort, workerData } from 'node:worker_threads';
 import { join } from 'node:path';
 import { runPlanWithGeometry, type PlanOptions } from './run.js';
 import { batchParts, withoutRatePieces } from './worker-parts.js';
+import type { AtmosphereTable } from '../link/atmosphere/types.js';
 import { serializeError } from '../errors.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import { newLinkTableCache } from './link.js';
@@ -34,6 +35,8 @@ interface Job {
 
 const job = workerData as Job;
 const tables = newLinkTableCache();
+/** The margin rows' atmosphere tables, kept across batches (keyed by their inputs). */
+const marginTables = new Map<string, AtmosphereTable>();
 
 parentPort?.on('message', (msg: BatchJob) => {
   let reply: WorkerReply;
@@ -48,7 +51,7 @@ parentPort?.on('message', (msg: BatchJob) => {
       transfer = transferablesOf(reply.texts);
     }
     if (job.weekParts !== 'none') {
-      reply.parts = batchParts(scenario, result, geometry, job.weekParts === 'margins');
+      reply.parts = batchParts(scenario, result, geometry, job.weekParts === 'margins', marginTables);
       if (job.slimContacts) reply.result = withoutRatePieces(result);
     }
   } catch (err) {

@@ -10,6 +10,7 @@
  * the week stage makes its figures itself, by the same functions.
  */
 import type { Scenario } from '../scenario/types.js';
+import type { AtmosphereTable } from '../link/atmosphere/types.js';
 import type { Geometry } from './contacts.js';
 import { marginRows, type MarginRow } from './margin.js';
 import type { Contact, ContactLink, PlanResult } from './types.js';
@@ -21,13 +22,13 @@ export interface BatchParts {
   margins?: MarginRow[];
 }
 
-/** The batch's own figures (`margins`: also the margin rows, which only the report needs). */
-export function batchParts(scenario: Scenario, result: PlanResult, geometry: Geometry, margins: boolean): BatchParts {
+/** The batch's own figures (`margins`: also the margin rows, which only the report needs; `tables`: atmosphere tables kept by the worker). */
+export function batchParts(scenario: Scenario, result: PlanResult, geometry: Geometry, margins: boolean, tables?: Map<string, AtmosphereTable>): BatchParts {
   const unique = uniqueVolumes(
     scenario.spacecraft.map((s) => s.id),
     result.contacts,
   );
-  return margins ? { unique, margins: marginRows(scenario, result, {}, geometry) } : { unique };
+  return margins ? { unique, margins: marginRows(scenario, result, tables ? { tables } : {}, geometry) } : { unique };
 }
 
 /**
