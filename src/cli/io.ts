@@ -1,8 +1,12 @@
+import { once } from 'node:events';
+
 /** What a command may touch of the outside: two text sinks and the clock. */
 export interface CliIo {
   out(text: string): void;
   /** Bytes (UTF-8 text made elsewhere) to stdout; absent: outPieces decodes them for out(). */
   outBytes?(bytes: Uint8Array): void;
+  /** Resolves when stdout has taken what it was given (a pipe to a slow reader); absent: at once. */
+  drained?(): Promise<void> | undefined;
   err(text: string): void;
   /** True when stderr is an interactive terminal (progress is shown only then). */
   isTty: boolean;
@@ -12,6 +16,7 @@ export interface CliIo {
 export const processIo: CliIo = {
   out: (t) => process.stdout.write(t),
   outBytes: (b) => process.stdout.write(b),
+  drained: () => (process.stdout.writableNeedDrain ? once(process.stdout, 'drain').then(() => undefined) : undefined),
   err: (t) => process.stderr.write(t),
   isTty: Boolean(process.stderr.isTTY) && !process.env.CI,
   nowMs: () => Date.now(),
@@ -20,26 +25,32 @@ export const processIo: CliIo = {
 /** Bytes gathered before one io.out / io.outBytes call when printing a large output in pieces. */
 const OUT_CHUNK_BYTES = 1 << 20;
 
-/** Prints an output made in pieces (text or UTF-8 bytes), a large part at a time (never the whole text as one string). */
-export function outPieces(io: CliIo, pieces: Iterable<string | Uint8Array>): void {
+/**
+ * Prints an output made in pieces (text or UTF-8 bytes), a large part at a time (never the
+ * whole text as one string), waiting for stdout to drain before the next part (a slow
+ * reader of a pipe holds the run back instead of the run holding the output in memory).
+ */
+export async function outPieces(io: CliIo, pieces: Iterable<string | Uint8Array>): Promise<void> {
   let buf = Buffer.allocUnsafe(OUT_CHUNK_BYTES);
   let pos = 0;
-  const flush = (): void => {
+  const flush = async (): Promise<void> => {
     if (pos === 0) return;
     if (io.outBytes) {
       io.outBytes(buf.subarray(0, pos));
       buf = Buffer.allocUnsafe(OUT_CHUNK_BYTES); // the stream may still hold the last one
     } else io.out(buf.toString('utf8', 0, pos));
     pos = 0;
+    await io.drained?.();
   };
   for (const p of pieces) {
     const most = typeof p === 'string' ? p.length * 3 : p.length;
     if (pos + most > buf.length) {
-      flush();
+      await flush();
       if (most > buf.length) {
         if (typeof p === 'string') io.out(p);
-        else if (io.outBytes) io.outBytes(p);
+        else if (io.outBytes) io.outBytes(Buffer.from(p)); // a copy: a piece may be a view into a reused window
         else io.out(Buffer.from(p.buffer, p.byteOffset, p.length).toString('utf8'));
+        await io.drained?.();
         continue;
       }
     }
@@ -49,5 +60,5 @@ export function outPieces(io: CliIo, pieces: Iterable<string | Uint8Array>): voi
       pos += p.length;
     }
   }
-  flush();
+  await flush();
 }

@@ -33,10 +33,10 @@ export async function emitWeek(io: CliIo, opts: CommonOptions, week: Week, repor
     ...(schedule && recorders ? { schedule: scheduleJson(unscheduled, schedule, recorders), recorder: recorderJson(recorders) } : {}),
     ...(booked ? { booking: booked.json, recorder: recorderJson(booked.recorders) } : {}),
   };
-  if (opts.format === 'json') outPieces(io, planJsonPieces(plan, jsonExtra));
-  else if (opts.format === 'csv') outPieces(io, planCsvPieces(plan));
+  if (opts.format === 'json') await outPieces(io, planJsonPieces(plan, jsonExtra));
+  else if (opts.format === 'csv') await outPieces(io, planCsvPieces(plan));
   else {
-    outPieces(io, planTablePieces(plan, opts.zone));
+    await outPieces(io, planTablePieces(plan, opts.zone));
     io.out('\n' + renderDailyTable(daily, dayMode, totals, allStations));
   }
   if (opts.format === 'table' && schedule && recorders) io.out('\n' + renderScheduleTable(unscheduled, schedule, opts.zone, recorders) + '\n' + renderRecorderTable(recorders));
