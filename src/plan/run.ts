@@ -42,8 +42,11 @@ export function runPlanWithGeometry(scenario: Scenario, span: Span, opts: PlanOp
     const setup = prepareLinks(scenario, geometry, { ...(opts.expectedVolume === false ? { expectedVolume: false } : {}), ...(cache ? { cache } : {}) });
     for (const w of setup.warnings) warnings.push(w);
     for (const o of setup.warningOrigins ?? []) origins.push(o);
-    const stats = integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS);
-    const other = integrateOtherRadios(found.contacts, geometry, setup, scenario.link, linkStepS);
+    // without a radio in the fleet there is nothing to integrate (nor a Sun and Moon table to build for it)
+    const anyRadio = scenario.spacecraft.some((s) => s.radios.length > 0);
+    const none = { linkSamples: 0, propagations: 0 };
+    const stats = anyRadio ? integrateContacts(found.contacts, geometry, setup, scenario.link, linkStepS) : none;
+    const other = anyRadio ? integrateOtherRadios(found.contacts, geometry, setup, scenario.link, linkStepS) : none;
     linkSamples = stats.linkSamples + other.linkSamples;
     propagations += stats.propagations + other.propagations;
     sunOutages = sortOutages(scenario, findSunOutages(found.contacts, geometry, setup));
