@@ -2,7 +2,8 @@
 // through 32 KiB windows give exactly the bytes rendered in memory, in the orders the
 // outputs ask for them: plan order (CSV, JSON, JSON Lines), by AOS across stations
 // (contacts.ics) and station by station (the station calendars); and the texts are the
-// per-contact renderers' own (contactTexts, eventText). Scenario: the bundled demo, one day.
+// per-contact renderers' own (contactTexts, eventText). Scenario: the bundled demo, one day,
+// one station renamed with letters beyond ASCII.
 import { describe, it, expect } from 'vitest';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -19,7 +20,9 @@ describe('spilled contact texts', () => {
   it('read back byte for byte in every order the outputs use', () => {
     const scenario = loadScenario(demoFiles());
     const start = scenario.span!.startMs;
-    const plan = runPlan(scenario, { startMs: start, endMs: start + 86_400_000 }, { linkStepS: 30 });
+    const found = runPlan(scenario, { startMs: start, endMs: start + 86_400_000 }, { linkStepS: 30 });
+    // names beyond ASCII (in the calendar events): byte offsets are not character offsets
+    const plan = { ...found, stations: found.stations.map((s, i) => (i === 0 ? { ...s, name: `Søndre Ørn ✓ ${s.name}` } : s)) };
     const n = plan.contacts.length;
     expect(n).toBeGreaterThan(50);
     const dir = mkdtempSync(join(tmpdir(), 'pb-spill-'));
