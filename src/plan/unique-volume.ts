@@ -51,8 +51,10 @@ const expectedOf = (c: Contact): number => c.link?.expectedVolumeBits ?? c.link?
  * pieces), into absolute 15-min bins (fractional bits).
  */
 function maxRateBins(cluster: readonly Contact[], expected = false): Map<number, number> {
-  const edges: number[] = [];
   const lists: number[][] = [];
+  let count = 0;
+  let minMs = Infinity;
+  let maxMs = -Infinity;
   for (const c of cluster) {
     const p = expected ? c.link?.expectedRatePieces : c.link?.ratePieces;
     if (!p) {
@@ -61,28 +63,42 @@ function maxRateBins(cluster: readonly Contact[], expected = false): Map<number,
       continue;
     }
     lists.push(p);
-    for (let i = 0; i < p.length; i += 3) edges.push(p[i]!, p[i + 1]!);
+    for (let i = 0; i < p.length; i += 3) {
+      minMs = Math.min(minMs, p[i]!, p[i + 1]!);
+      maxMs = Math.max(maxMs, p[i]!, p[i + 1]!);
+    }
+    count += (2 * p.length) / 3;
   }
   const bins = new Map<number, number>();
-  if (edges.length === 0) return bins;
-  edges.sort((a, b) => a - b);
-  const first = Math.floor(edges[0]! / VOLUME_BIN_MS) * VOLUME_BIN_MS;
-  const lastMs = edges[edges.length - 1]!;
-  for (let e = first + VOLUME_BIN_MS; e < lastMs; e += VOLUME_BIN_MS) edges.push(e);
-  edges.sort((a, b) => a - b);
-  const ptr = lists.map(() => 0);
+  if (count === 0) return bins;
+  // every piece's ends and every 15-minute boundary inside, in one sorted list
+  const first = Math.floor(minMs / VOLUME_BIN_MS) * VOLUME_BIN_MS;
+  let boundaries = 0;
+  for (let e = first + VOLUME_BIN_MS; e < maxMs; e += VOLUME_BIN_MS) boundaries++;
+  const edges = new Float64Array(count + boundaries);
+  let n = 0;
+  for (const p of lists) {
+    for (let i = 0; i < p.length; i += 3) {
+      edges[n++] = p[i]!;
+      edges[n++] = p[i + 1]!;
+    }
+  }
+  for (let e = first + VOLUME_BIN_MS; e < maxMs; e += VOLUME_BIN_MS) edges[n++] = e;
+  edges.sort();
+  const ptr = new Int32Array(lists.length);
   for (let k = 0; k + 1 < edges.length; k++) {
     const a = edges[k]!;
     const b = edges[k + 1]!;
     if (!(b > a)) continue;
     const mid = 0.5 * (a + b);
     let best = 0;
-    lists.forEach((p, j) => {
+    for (let j = 0; j < lists.length; j++) {
+      const p = lists[j]!;
       let i = ptr[j]!;
       while (i < p.length && p[i + 1]! <= mid) i += 3;
       ptr[j] = i;
       if (i < p.length && p[i]! <= mid && p[i + 2]! > best) best = p[i + 2]!;
-    });
+    }
     if (best <= 0) continue;
     const bin = Math.floor(mid / VOLUME_BIN_MS) * VOLUME_BIN_MS;
     bins.set(bin, (bins.get(bin) ?? 0) + (best * (b - a)) / 1000);
