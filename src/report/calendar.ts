@@ -155,7 +155,7 @@ function* calendarPieces(plan: PlanResult, indices: Iterable<number>, name: stri
   yield head.map(foldLine).join(CRLF) + CRLF;
   const ctx = eventContext(plan);
   const store = contactTextsOf(plan);
-  for (const i of indices) yield (store && storedText(store, FORM.ics, i)) || eventText(ctx, plan.contacts[i]!, uids()[i]!);
+  for (const i of indices) yield (store ? storedText(store, FORM.ics, i) : undefined) ?? eventText(ctx, plan.contacts[i]!, uids()[i]!);
   yield 'END:VCALENDAR' + CRLF;
 }
 
@@ -179,7 +179,7 @@ export function renderCalendar(plan: PlanResult, contacts: readonly Contact[], n
     if (i === undefined) throw new Error('renderCalendar: contact is not part of the plan');
     return i;
   });
-  return [...calendarPieces(plan, byAos(plan, indices), name, lazyUids(plan, uids))].map((p) => (typeof p === 'string' ? p : Buffer.from(p).toString('utf8'))).join('');
+  return joinPieces(calendarPieces(plan, byAos(plan, indices), name, lazyUids(plan, uids)));
 }
 
 /** File-name-safe form of a station id. */
@@ -208,5 +208,12 @@ export function calendarFiles(plan: PlanResult): { name: string; content: Iterab
 
 /** The calendars as whole strings (calendarFiles made in one piece each). */
 export function renderCalendars(plan: PlanResult): { name: string; content: string }[] {
-  return calendarFiles(plan).map((f) => ({ name: f.name, content: [...f.content].map((p) => (typeof p === 'string' ? p : Buffer.from(p).toString('utf8'))).join('') }));
+  return calendarFiles(plan).map((f) => ({ name: f.name, content: joinPieces(f.content) }));
+}
+
+/** Pieces of text or UTF-8 bytes as one string. */
+function joinPieces(pieces: Iterable<string | Uint8Array>): string {
+  let s = '';
+  for (const p of pieces) s += typeof p === 'string' ? p : Buffer.from(p).toString('utf8');
+  return s;
 }

@@ -14,7 +14,7 @@ import { workerUniqueVolumes } from '../plan/worker-parts.js';
 import { jsonPieces, rawLinesPieces, RawList } from './json-stream.js';
 import { CONTACT_JSON_PAD, contactTexts, csvLayout, type CsvLayout } from './contact-text.js';
 import { contactTextsOf, FORM, storedText, type ContactTextStore, type Form } from './contact-store.js';
-import { CONTACT_COLUMNS, contactRecord, type Cell } from './contact-columns.js';
+import { contactRecord } from './contact-columns.js';
 
 export { CONTACT_COLUMNS, contactRecord, type Cell, type ContactColumn } from './contact-columns.js';
 
