@@ -10,7 +10,7 @@
  * so the records of a large fleet are made on every core, not on the main thread alone.
  */
 import type { Contact, ContactLink } from '../plan/types.js';
-import { CONTACT_COLUMNS, modcodCell, type Cell } from './contact-columns.js';
+import { CONTACT_COLUMNS, type Cell } from './contact-columns.js';
 
 /** Indentation of a contact record inside plan.json (document -> "contacts" -> item). */
 export const CONTACT_JSON_PAD = '    ';
@@ -80,20 +80,37 @@ export function csvLayout(contacts: readonly Contact[]): CsvLayout {
   return { mask, header: `${CONTACT_COLUMNS.filter((_, i) => mask[i]).map((col) => col.key).join(',')}\n` };
 }
 
-/** The time per MODCOD as a JSON object (keys sorted, seconds to 0.1 s): [pretty at `pad`, compact]. */
-function modcodJson(timeInModcodS: Record<string, number>, pad: string): [string, string] {
+/**
+ * The time per MODCOD in its forms, from one pass over its names: the JSON object (keys
+ * sorted, seconds to 0.1 s) [pretty at `pad`, compact], and when `csv`, the CSV cell
+ * (modcodCell: the closed ones by time, largest first, names breaking ties).
+ */
+function modcodTexts(timeInModcodS: Record<string, number>, pad: string, csv: boolean): [string, string, string] {
   const keys = Object.keys(timeInModcodS).sort();
-  if (keys.length === 0) return ['{}', '{}'];
+  if (keys.length === 0) return ['{}', '{}', ''];
   const inner = `${pad}  `;
   let pretty = '{';
   let compact = '{';
+  const closed: string[] = [];
+  const secs: number[] = [];
   for (let i = 0; i < keys.length; i++) {
-    const k = jsonString(keys[i]!);
-    const v = roundedText(timeInModcodS[keys[i]!] ?? 0, 1);
+    const name = keys[i]!;
+    const t = timeInModcodS[name] ?? 0;
+    const k = jsonString(name);
+    const v = roundedText(t, 1);
     pretty += `${i === 0 ? '' : ','}\n${inner}${k}: ${v}`;
     compact += `${i === 0 ? '' : ','}${k}:${v}`;
+    if (csv && t > 0) {
+      // insertion after every longer or equal time: names come sorted, so ties stay by name
+      let at = closed.length;
+      while (at > 0 && secs[at - 1]! < t) at--;
+      closed.splice(at, 0, name);
+      secs.splice(at, 0, t);
+    }
   }
-  return [`${pretty}\n${pad}}`, `${compact}}`];
+  let cell = '';
+  for (let i = 0; i < closed.length; i++) cell += `${i === 0 ? '' : ';'}${closed[i]}=${secs[i]!.toFixed(1)}`;
+  return [`${pretty}\n${pad}}`, `${compact}}`, cell];
 }
 
 /** The other radios' list: [pretty at `pad`, compact]. */
@@ -160,8 +177,9 @@ export function contactTexts(c: Contact, layout: CsvLayout | undefined): Contact
     let compact: string;
     let cellText: string | undefined;
     if (i === MODCOD_COLUMN) {
-      [pretty, compact] = modcodJson(c.link!.timeInModcodS, `${pad}  `);
-      if (inCsv) cellText = cellCsv(modcodCell(c.link!.timeInModcodS));
+      let cell: string;
+      [pretty, compact, cell] = modcodTexts(c.link!.timeInModcodS, `${pad}  `, inCsv);
+      if (inCsv) cellText = cellCsv(cell);
     } else if (col.digits !== undefined) {
       const t = roundedText(col.num!(c), col.digits);
       pretty = compact = t;
