@@ -36,7 +36,7 @@ import { EXPECTED_VOLUME_LEVELS, expectationWeights, expectedValueBound } from '
 import type { AtmosphereTable, ExceedanceLevelsTable } from '../link/atmosphere/types.js';
 import { prepareLink, evaluateLink, esN0ShiftDb } from '../link/budget.js';
 import { polarizationTiltDeg } from '../link/polarization.js';
-import { stationClimate } from '../link/climate/station.js';
+import { stationClimateValues } from '../link/climate/station.js';
 import { wavelengthM } from '../link/units.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import { modcodStaircase, stepAt, type ModcodStaircase } from '../link/modcod/acm.js';
@@ -85,7 +85,7 @@ export function linkExceedancePercent(settings: LinkSettings): number {
 
 export function atmosphereInputFor(station: Station, radio: Radio, settings: LinkSettings): AtmosphereStationInput {
   const exceedancePercent = linkExceedancePercent(settings);
-  const c = stationClimate(station, exceedancePercent).values;
+  const c = stationClimateValues(station, exceedancePercent);
   const { diameterM, efficiency } = effectiveDiameterM(station, radio.frequencyHz);
   return {
     frequencyHz: radio.frequencyHz,
