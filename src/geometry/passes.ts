@@ -28,6 +28,8 @@ import type { Mask, Span } from '../scenario/types.js';
 import { maskElevationDeg, prepareMask, type PreparedMask } from './mask.js';
 import { brentBoundary, brentMax, type MaxResult } from './roots.js';
 import { lookFrom, newLook } from './topocentric.js';
+import { reachAngleDeg, reachRadiusKm } from './reach.js';
+import { sgp4SmoothOver } from './targets/sgp4.js';
 import {
   DEFAULT_PEAK_TOLERANCE_S,
   DEFAULT_SEARCH,
@@ -115,6 +117,13 @@ class PassSearch {
   private readonly sight: boolean;
   private readonly gNow: Float64Array;
   private readonly elNow: Float64Array;
+  /** Lowest and highest elevation of each site's mask, deg. */
+  private readonly maskLowDeg: Float64Array;
+  private readonly maskHighDeg: Float64Array;
+  /** The scan state at the previous sample, and the reach ball about it (reachKm, for sample reachK). */
+  private readonly prevState = new Float64Array(6);
+  private reachK = -1;
+  private reachKm = Number.NaN;
 
   constructor(
     private readonly target: Target,
@@ -156,6 +165,13 @@ class PassSearch {
     this.aosEl = new Float64Array(n);
     this.bestEl = new Float64Array(n);
     this.bestK = new Int32Array(n);
+    this.maskLowDeg = new Float64Array(n);
+    this.maskHighDeg = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const m = masks[i]!;
+      this.maskLowDeg[i] = m.kind === 'constant' ? m.elevationDeg : Math.min(...m.elevationDeg);
+      this.maskHighDeg[i] = m.kind === 'constant' ? m.elevationDeg : Math.max(...m.elevationDeg);
+    }
     this.gOfS = (s: number) => this.gAt(this.refMs + s * 1000);
     this.elOfS = (s: number) => {
       this.gAt(this.refMs + s * 1000);
@@ -257,6 +273,7 @@ class PassSearch {
         this.gm1[i] = g;
         this.elm1[i] = this.elNow[i]!;
       }
+      this.prevState.set(this.scanState);
       if (trackEnded) break;
     }
     // close windows still open at the last sample (span end, or the track's end)
@@ -324,7 +341,7 @@ class PassSearch {
         if (t <= this.startMs) this.open[i] = 0; // ended before the span
         else if (tPrev >= this.endMs) this.emit(i, Number.POSITIVE_INFINITY, Number.NaN, Number.NaN, false);
         else this.emitAt(i, this.boundary(tPrev, gPrev, t, g), false);
-      } else if (k >= 2 && gPrev2 > 0 && gPrev < gPrev2 && gPrev <= g) {
+      } else if (k >= 2 && gPrev2 > 0 && gPrev < gPrev2 && gPrev <= g && !this.surelyAboveMask(i, k)) {
         // a dip inside the window: does it go below the mask between samples?
         const tPrev2 = times[k - 2]!;
         const r = this.extremumG(tPrev2, t, tPrev, gPrev, -1);
@@ -344,7 +361,7 @@ class PassSearch {
       if (t <= this.startMs) this.openWindow(i, Number.NEGATIVE_INFINITY); // rose before the span
       else if (tPrev >= this.endMs) this.openWindow(i, Number.POSITIVE_INFINITY); // rises after it
       else this.openWindow(i, this.boundary(tPrev, gPrev, t, g));
-    } else if (k >= 2 && gPrev > gPrev2 && gPrev >= g && !(gPrev > 0) && !(gPrev2 > 0)) {
+    } else if (k >= 2 && gPrev > gPrev2 && gPrev >= g && !(gPrev > 0) && !(gPrev2 > 0) && !this.surelyBelowMask(i, k)) {
       // a peak between samples that are all below the mask: a short window?
       const tPrev2 = times[k - 2]!;
       const r = this.extremumG(tPrev2, t, tPrev, gPrev, 1);
@@ -357,6 +374,41 @@ class PassSearch {
         this.emitAt(i, los, false);
       }
     }
+  }
+
+  /**
+   * Elevation reach (reach.ts) of the target over [times[k-2], times[k]] about its state at
+   * times[k-1] as seen from site i, deg; Infinity when no bound holds (not a one-set SGP4
+   * track there, a track that has failed, too near the Earth).
+   */
+  private reachDeg(i: number, k: number): number {
+    if (this.reachK !== k) {
+      this.reachK = k;
+      const t0 = this.times[k - 2]!;
+      const t1 = this.times[k - 1]!;
+      const t2 = this.times[k]!;
+      this.reachKm =
+        this.target.failedAtMs === undefined && sgp4SmoothOver(this.target, t0, t2)
+          ? reachRadiusKm(this.prevState, Math.max(t1 - t0, t2 - t1) / 1000)
+          : Number.NaN;
+    }
+    if (!(this.reachKm >= 0)) return Number.POSITIVE_INFINITY;
+    const s = this.sites[i]!.ecefKm;
+    const p = this.prevState;
+    return reachAngleDeg(this.reachKm, Math.hypot(p[0]! - s[0], p[1]! - s[1], p[2]! - s[2]));
+  }
+
+  /**
+   * True when g cannot rise above 0 on [times[k-2], times[k]] (site i): then the short-window
+   * maximiser's best g, a value of g there, is <= 0 and it would add nothing.
+   */
+  private surelyBelowMask(i: number, k: number): boolean {
+    return this.elm1[i]! + this.reachDeg(i, k) - this.maskLowDeg[i]! + 1e-9 <= 0;
+  }
+
+  /** True when g cannot fall to 0 on [times[k-2], times[k]] (site i): the dip's minimiser would not split the window. */
+  private surelyAboveMask(i: number, k: number): boolean {
+    return this.elm1[i]! - this.reachDeg(i, k) - this.maskHighDeg[i]! - 1e-9 > 0;
   }
 
   /** Close site i's window at losMs (look read from the memo or evaluated). */

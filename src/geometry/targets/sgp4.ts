@@ -214,6 +214,15 @@ class Sgp4Target implements Target {
     this.vTeme = this.teme.subarray(3, 6);
   }
 
+  /** True when one element set serves all of [aMs, bMs] (no switch to a nearer set inside). */
+  oneSetOver(aMs: number, bMs: number): boolean {
+    for (let i = 0; i < this.switchMs.length; i++) {
+      const s = this.switchMs[i]!;
+      if (s > aMs && s <= bMs) return false;
+    }
+    return true;
+  }
+
   stateEcefAt(tMs: number, out: Float64Array): boolean {
     if (this.failedAtMs !== undefined && tMs >= this.failedAtMs) return false;
     let i = this.current;
@@ -234,6 +243,15 @@ class Sgp4Target implements Target {
     temeToEcef(this.rTeme, this.vTeme, gmstRadAt(tMs), out);
     return true;
   }
+}
+
+/**
+ * True when `target` is an SGP4 target whose states over [aMs, bMs] come from one element
+ * set: a smooth orbit there, whose acceleration is the Earth's gravity (plus small
+ * perturbations) in inertial axes. False for every other target.
+ */
+export function sgp4SmoothOver(target: Target, aMs: number, bMs: number): boolean {
+  return target instanceof Sgp4Target && target.oneSetOver(aMs, bMs);
 }
 
 /**
