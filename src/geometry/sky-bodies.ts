@@ -56,6 +56,7 @@ export class SkyBodies {
   /** Geocentric unit vectors towards them at `atMs` (ECEF), for farFromBoth. */
   private readonly sunU = new Float64Array(3);
   private readonly moonU = new Float64Array(3);
+  private unitsAtMs = Number.NaN;
   private atMs = Number.NaN;
 
   constructor(span: Span) {
@@ -85,8 +86,6 @@ export class SkyBodies {
     this.toEcef(sidereal, this.sunEcefKm);
     this.moon.stateAt(tMs, this.eqj);
     this.toEcef(sidereal, this.moonEcefKm);
-    unit(this.sunEcefKm, this.sunU);
-    unit(this.moonEcefKm, this.moonU);
   }
 
   /**
@@ -98,6 +97,11 @@ export class SkyBodies {
    * for the Moon at perigee), plus 0.01 deg for rounding. A cheap test; false is no answer.
    */
   farFromBoth(bx: number, by: number, bz: number, rangeKm: number, cosSunLimit: number, cosMoonLimit: number): boolean {
+    if (this.unitsAtMs !== this.atMs) {
+      this.unitsAtMs = this.atMs;
+      unit(this.sunEcefKm, this.sunU);
+      unit(this.moonEcefKm, this.moonU);
+    }
     const u = this.sunU;
     if ((bx * u[0]! + by * u[1]! + bz * u[2]!) / rangeKm >= cosSunLimit) return false;
     const m = this.moonU;
@@ -152,7 +156,7 @@ export function farCosLimit(offsetDeg: number, marginDeg: number): number {
 }
 
 function unit(p: Float64Array, out: Float64Array): void {
-  const n = Math.hypot(p[0]!, p[1]!, p[2]!);
+  const n = Math.sqrt(p[0]! * p[0]! + p[1]! * p[1]! + p[2]! * p[2]!);
   out[0] = p[0]! / n;
   out[1] = p[1]! / n;
   out[2] = p[2]! / n;
