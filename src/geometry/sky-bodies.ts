@@ -57,6 +57,11 @@ export class SkyBodies {
   private readonly sunU = new Float64Array(3);
   private readonly moonU = new Float64Array(3);
   private unitsAtMs = Number.NaN;
+  /** atGrid's grid and the positions kept for it. */
+  private gridOriginMs = Number.NaN;
+  private gridStepMs = Number.NaN;
+  private gridPos: Float64Array | undefined;
+  private gridSet: Uint8Array | undefined;
   private atMs = Number.NaN;
 
   constructor(span: Span) {
@@ -72,6 +77,43 @@ export class SkyBodies {
     }
     this.moon = new MoonEphemeris(span.startMs, span.endMs);
     this.eqd = new EqdTable(span.startMs - PAD_MS / 2, span.endMs + PAD_MS / 2);
+  }
+
+  /**
+   * at(tMs) for a time of a grid, tMs = originMs + k stepMs: the positions at() computed the
+   * first time any caller asked for grid point k are kept and copied back (the link sampler's
+   * grid is the same for every spacecraft of a run). The same numbers as at(tMs).
+   */
+  atGrid(originMs: number, stepMs: number, k: number, tMs: number): void {
+    if (tMs === this.atMs) return;
+    if (originMs !== this.gridOriginMs || stepMs !== this.gridStepMs) {
+      this.gridOriginMs = originMs;
+      this.gridStepMs = stepMs;
+      const n = Math.max(0, Math.ceil((this.t0Ms + this.n * SKY_SUN_STEP_S * 1000 - originMs) / stepMs) + 1);
+      this.gridPos = new Float64Array(6 * n);
+      this.gridSet = new Uint8Array(n);
+    }
+    const set = this.gridSet!;
+    if (!(k >= 0 && k < set.length) || tMs !== originMs + k * stepMs) {
+      this.at(tMs);
+      return;
+    }
+    const g = this.gridPos!;
+    const o = 6 * k;
+    if (set[k] === 1) {
+      this.atMs = tMs;
+      for (let i = 0; i < 3; i++) {
+        this.sunEcefKm[i] = g[o + i]!;
+        this.moonEcefKm[i] = g[o + 3 + i]!;
+      }
+      return;
+    }
+    this.at(tMs);
+    for (let i = 0; i < 3; i++) {
+      g[o + i] = this.sunEcefKm[i]!;
+      g[o + 3 + i] = this.moonEcefKm[i]!;
+    }
+    set[k] = 1;
   }
 
   /** Moves both bodies to tMs (cheap when tMs has not changed). */

@@ -720,7 +720,7 @@ export function integrateContacts(
         continue;
       }
       if (!interp.stateAt(tMs, state)) continue;
-      sky.at(tMs);
+      sky.atGrid(t0, stepMs, k, tMs);
       for (const acc of active) {
         if (tMs <= acc.contact.aosMs || tMs >= acc.contact.losMs) continue;
         lookFrom(acc.site, state, look);
