@@ -74,6 +74,31 @@ export function findPasses(
   return new PassSearch(target, sites, masks.map(asPreparedMask), span, stepS, opts).run();
 }
 
+/** findPasses with the slant ranges the search evaluated at each window's AOS, TCA and LOS. */
+export interface PassesWithRanges {
+  passes: Pass[];
+  /**
+   * Per pass: [AOS, TCA, LOS] slant range, km, from lookFrom of the target's state at exactly
+   * that time (the search's own evaluation); NaN where the search has none at hand.
+   */
+  rangesKm: Map<Pass, Float64Array>;
+}
+
+export function findPassesWithRanges(
+  target: Target,
+  sites: readonly Site[],
+  masks: readonly (Mask | PreparedMask)[],
+  span: Span,
+  opts: SearchOptions = DEFAULT_SEARCH,
+): PassesWithRanges {
+  const stepS = opts.scanStepS ?? target.scanStepS;
+  checkSearchInputs(sites, masks, span, stepS);
+  if (!(opts.edgeToleranceS > 0)) throw new ModelRangeError(MODEL, 'edgeToleranceS', opts.edgeToleranceS, '> 0 s');
+  const search = new PassSearch(target, sites, masks.map(asPreparedMask), span, stepS, opts);
+  const passes = search.run();
+  return { passes, rangesKm: search.rangesKm };
+}
+
 class PassSearch {
   private readonly nSites: number;
   private readonly times: Float64Array;
@@ -95,6 +120,10 @@ class PassSearch {
   private readonly memoSite: Int32Array;
   private readonly memoAz: Float64Array;
   private readonly memoEl: Float64Array;
+  private readonly memoRange: Float64Array;
+  /** Slant ranges at AOS, TCA and LOS of each pass (findPassesWithRanges). */
+  readonly rangesKm = new Map<Pass, Float64Array>();
+  private readonly aosRange: Float64Array;
   private memoN = 0;
   // the function the solvers see
   private curSite = 0;
@@ -152,6 +181,7 @@ class PassSearch {
     this.memoSite = new Int32Array(memoSize);
     this.memoAz = new Float64Array(memoSize);
     this.memoEl = new Float64Array(memoSize);
+    this.memoRange = new Float64Array(memoSize);
     const n = this.nSites;
     this.gNow = new Float64Array(n);
     this.elNow = new Float64Array(n);
@@ -165,6 +195,7 @@ class PassSearch {
     this.aosEl = new Float64Array(n);
     this.bestEl = new Float64Array(n);
     this.bestK = new Int32Array(n);
+    this.aosRange = new Float64Array(n);
     this.maskLowDeg = new Float64Array(n);
     this.maskHighDeg = new Float64Array(n);
     for (let i = 0; i < n; i++) {
@@ -188,6 +219,7 @@ class PassSearch {
     if (!this.target.stateEcefAt(tMs, this.refState)) {
       this.memoAz[m] = 0;
       this.memoEl[m] = NO_STATE_G;
+      this.memoRange[m] = Number.NaN;
       this.lastEl = NO_STATE_G;
       return NO_STATE_G;
     }
@@ -195,6 +227,7 @@ class PassSearch {
     const look = lookFrom(site, this.refState, this.refLook);
     this.memoAz[m] = look.azimuthDeg;
     this.memoEl[m] = look.elevationDeg;
+    this.memoRange[m] = look.rangeKm;
     this.lastEl = look.elevationDeg;
     const g = look.elevationDeg - maskElevationDeg(this.masks[this.curSite]!, look.azimuthDeg);
     return this.sight ? Math.min(g, this.target.sightMarginDeg!(site.ecefKm)) : g;
@@ -210,6 +243,7 @@ class PassSearch {
       if (this.memoT[m] === tMs && this.memoSite[m] === site) {
         this.refLook.azimuthDeg = this.memoAz[m]!;
         this.refLook.elevationDeg = this.memoEl[m]!;
+        this.refLook.rangeKm = this.memoRange[m]!;
         return;
       }
     }
@@ -217,6 +251,19 @@ class PassSearch {
     const m = (this.memoN - 1) % size;
     this.refLook.azimuthDeg = this.memoAz[m]!;
     this.refLook.elevationDeg = this.memoEl[m]!;
+    this.refLook.rangeKm = this.memoRange[m]!;
+  }
+
+  /** Slant range at tMs for the current site if the memo holds that evaluation, else NaN. */
+  private memoRangeAt(tMs: number): number {
+    const size = this.memoT.length;
+    const first = Math.max(0, this.memoN - size);
+    const site = this.curSite;
+    for (let j = this.memoN - 1; j >= first; j--) {
+      const m = j % size;
+      if (this.memoT[m] === tMs && this.memoSite[m] === site) return this.memoRange[m]!;
+    }
+    return Number.NaN;
   }
 
   /** Visible-side time of the g crossing between (aMs, ga) and (bMs, gb). */
@@ -319,6 +366,7 @@ class PassSearch {
       this.lookAt(aosMs);
       this.aosAz[i] = this.refLook.azimuthDeg;
       this.aosEl[i] = this.refLook.elevationDeg;
+      this.aosRange[i] = this.refLook.rangeKm;
     }
     this.bestEl[i] = Number.NEGATIVE_INFINITY;
     this.bestK[i] = -1;
@@ -414,17 +462,18 @@ class PassSearch {
   /** Close site i's window at losMs (look read from the memo or evaluated). */
   private emitAt(i: number, losMs: number, trackEnded: boolean): void {
     this.lookAt(losMs);
-    this.emit(i, losMs, this.refLook.azimuthDeg, this.refLook.elevationDeg, trackEnded);
+    this.emit(i, losMs, this.refLook.azimuthDeg, this.refLook.elevationDeg, trackEnded, this.refLook.rangeKm);
   }
 
   /** Cut site i's open window [aosRaw, losMs] to the span, refine its peak, record it. */
-  private emit(i: number, losRawMs: number, losAzIn: number, losElIn: number, trackEnded: boolean): void {
+  private emit(i: number, losRawMs: number, losAzIn: number, losElIn: number, trackEnded: boolean, losRangeIn = Number.NaN): void {
     this.open[i] = 0;
     const aosRaw = this.aosRaw[i]!;
     if (losRawMs <= this.startMs || aosRaw >= this.endMs) return;
     let aosMs = aosRaw;
     let aosAz = this.aosAz[i]!;
     let aosEl = this.aosEl[i]!;
+    let aosRange = this.aosRange[i]!;
     let aosClipped = false;
     if (aosMs < this.startMs) {
       aosMs = this.startMs;
@@ -432,10 +481,12 @@ class PassSearch {
       this.lookAt(aosMs);
       aosAz = this.refLook.azimuthDeg;
       aosEl = this.refLook.elevationDeg;
+      aosRange = this.refLook.rangeKm;
     }
     let losMs = losRawMs;
     let losAz = losAzIn;
     let losEl = losElIn;
+    let losRange = losRangeIn;
     let losClipped = false;
     if (losMs > this.endMs) {
       losMs = this.endMs;
@@ -446,6 +497,7 @@ class PassSearch {
       this.lookAt(losMs);
       losAz = this.refLook.azimuthDeg;
       losEl = this.refLook.elevationDeg;
+      losRange = this.refLook.rangeKm;
     }
     // peak: refine around the best sample, or over the whole (short) window
     let lo = aosMs;
@@ -467,15 +519,18 @@ class PassSearch {
     const r = brentMax(this.elOfS, 0, (hi - lo) / 1000, (x0 - lo) / 1000, e0, this.peakTolS, this.maxIter, this.maxOut);
     let tcaMs = lo + r.x * 1000;
     let maxEl = r.f;
+    let tcaRange = this.memoRangeAt(tcaMs);
     if (aosEl > maxEl) {
       maxEl = aosEl;
       tcaMs = aosMs;
+      tcaRange = aosRange;
     }
     if (losEl > maxEl) {
       maxEl = losEl;
       tcaMs = losMs;
+      tcaRange = losRange;
     }
-    this.passes.push({
+    const pass: Pass = {
       spacecraftId: this.target.spacecraftId,
       stationId: this.sites[i]!.stationId,
       aosMs,
@@ -489,6 +544,8 @@ class PassSearch {
       aosClipped,
       losClipped,
       losTrackEnded: trackEnded,
-    });
+    };
+    this.passes.push(pass);
+    this.rangesKm.set(pass, Float64Array.of(aosRange, tcaRange, losRange));
   }
 }

@@ -8,8 +8,8 @@
  */
 import { makeSite } from '../geometry/earth.js';
 import { prepareMask, type PreparedMask } from '../geometry/mask.js';
-import { findPasses } from '../geometry/passes.js';
-import { makeSgp4Target, elementAgeWarning } from '../geometry/targets/sgp4.js';
+import { findPassesWithRanges } from '../geometry/passes.js';
+import { makeSgp4Target, elementAgeWarning, isSgp4Target } from '../geometry/targets/sgp4.js';
 import { makeMoonTarget } from '../geometry/targets/moon.js';
 import { makeFixedSkyTarget } from '../geometry/targets/fixedSky.js';
 import { makeEphemerisTarget } from '../geometry/targets/ephemeris.js';
@@ -123,8 +123,10 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
     }
     if (searchSpan.endMs > searchSpan.startMs) {
       const siteOf = new Map(geometry.sites.map((s) => [s.stationId, s]));
-      for (const p of findPasses(target, geometry.sites, geometry.masks, searchSpan, search)) {
-        contacts.push({ ...p, durationS: (p.losMs - p.aosMs) / 1000, ...transmitTimes(target, siteOf.get(p.stationId)!, p) });
+      const found = findPassesWithRanges(target, geometry.sites, geometry.masks, searchSpan, search);
+      const ranges = isSgp4Target(target) ? found.rangesKm : undefined;
+      for (const p of found.passes) {
+        contacts.push({ ...p, durationS: (p.losMs - p.aosMs) / 1000, ...transmitTimes(target, siteOf.get(p.stationId)!, p, ranges?.get(p)) });
       }
     }
     propagations += target.evaluations - before;
@@ -152,14 +154,23 @@ const ltLook = newLook();
  * (geometry/light-time.ts): each is the received time less the light time of the
  * station-to-craft range there (the range of a light-time corrected state).
  */
-function transmitTimes(target: Target, site: Site, p: { aosMs: number; tcaMs: number; losMs: number }): Pick<Contact, 'aosTransmitMs' | 'losTransmitMs' | 'lightTimeS'> {
-  const tau = (tMs: number): number => {
+function transmitTimes(
+  target: Target,
+  site: Site,
+  p: { aosMs: number; tcaMs: number; losMs: number },
+  /** The search's slant ranges at AOS, TCA and LOS (SGP4 targets: a state is a function of the time alone). */
+  searchRangesKm?: Float64Array,
+): Pick<Contact, 'aosTransmitMs' | 'losTransmitMs' | 'lightTimeS'> {
+  const tau = (tMs: number, j: number): number => {
+    // the search's range is the one evaluated here again, unless the track has ended before tMs since
+    const known = searchRangesKm?.[j];
+    if (known !== undefined && !Number.isNaN(known) && (target.failedAtMs === undefined || tMs < target.failedAtMs)) return lightTimeS(known);
     if (!target.stateEcefAt(tMs, ltState)) return Number.NaN;
     return lightTimeS(lookFrom(site, ltState, ltLook).rangeKm);
   };
-  const aos = tau(p.aosMs);
-  const los = tau(p.losMs);
-  return { aosTransmitMs: p.aosMs - aos * 1000, losTransmitMs: p.losMs - los * 1000, lightTimeS: tau(p.tcaMs) };
+  const aos = tau(p.aosMs, 0);
+  const los = tau(p.losMs, 2);
+  return { aosTransmitMs: p.aosMs - aos * 1000, losTransmitMs: p.losMs - los * 1000, lightTimeS: tau(p.tcaMs, 1) };
 }
 
 /** Lunar two-body elements further than this from any part of the window get a warning, days (lunar-orbit.ts: km per day of drift). */

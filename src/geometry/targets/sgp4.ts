@@ -245,6 +245,11 @@ class Sgp4Target implements Target {
   }
 }
 
+/** True when `target` is an SGP4 target: its state is a function of the time alone, until its track ends. */
+export function isSgp4Target(target: Target): boolean {
+  return target instanceof Sgp4Target;
+}
+
 /**
  * True when `target` is an SGP4 target whose states over [aMs, bMs] come from one element
  * set: a smooth orbit there, whose acceleration is the Earth's gravity (plus small
