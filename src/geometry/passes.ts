@@ -28,7 +28,7 @@ import type { Mask, Span } from '../scenario/types.js';
 import { maskElevationDeg, prepareMask, type PreparedMask } from './mask.js';
 import { brentBoundary, brentMax, type MaxResult } from './roots.js';
 import { lookFrom, newLook } from './topocentric.js';
-import { reachAngleDeg, reachRadiusKm } from './reach.js';
+import { elevationBoundsDeg } from './reach.js';
 import { sgp4SmoothOver } from './targets/sgp4.js';
 import {
   DEFAULT_PEAK_TOLERANCE_S,
@@ -149,10 +149,12 @@ class PassSearch {
   /** Lowest and highest elevation of each site's mask, deg. */
   private readonly maskLowDeg: Float64Array;
   private readonly maskHighDeg: Float64Array;
-  /** The scan state at the previous sample, and the reach ball about it (reachKm, for sample reachK). */
+  /** The scan state at the previous sample, and whether bounds hold about it (for sample reachK). */
   private readonly prevState = new Float64Array(6);
   private reachK = -1;
-  private reachKm = Number.NaN;
+  private reachOk = false;
+  private reachTauS = 0;
+  private readonly elBounds = new Float64Array(2);
 
   constructor(
     private readonly target: Target,
@@ -425,25 +427,20 @@ class PassSearch {
   }
 
   /**
-   * Elevation reach (reach.ts) of the target over [times[k-2], times[k]] about its state at
-   * times[k-1] as seen from site i, deg; Infinity when no bound holds (not a one-set SGP4
-   * track there, a track that has failed, too near the Earth).
+   * Bounds of site i's elevation (reach.ts elevationBoundsDeg) over [times[k-2], times[k]]
+   * from the target's state at times[k-1], into elBounds; false when none holds (not a
+   * one-set SGP4 track there, a track that has failed, a degenerate geometry).
    */
-  private reachDeg(i: number, k: number): number {
+  private elevationBounds(i: number, k: number): boolean {
     if (this.reachK !== k) {
       this.reachK = k;
       const t0 = this.times[k - 2]!;
       const t1 = this.times[k - 1]!;
       const t2 = this.times[k]!;
-      this.reachKm =
-        this.target.failedAtMs === undefined && sgp4SmoothOver(this.target, t0, t2)
-          ? reachRadiusKm(this.prevState, Math.max(t1 - t0, t2 - t1) / 1000)
-          : Number.NaN;
+      this.reachOk = this.target.failedAtMs === undefined && sgp4SmoothOver(this.target, t0, t2);
+      this.reachTauS = Math.max(t1 - t0, t2 - t1) / 1000;
     }
-    if (!(this.reachKm >= 0)) return Number.POSITIVE_INFINITY;
-    const s = this.sites[i]!.ecefKm;
-    const p = this.prevState;
-    return reachAngleDeg(this.reachKm, Math.hypot(p[0]! - s[0], p[1]! - s[1], p[2]! - s[2]));
+    return this.reachOk && elevationBoundsDeg(this.sites[i]!, this.prevState, this.reachTauS, this.elBounds);
   }
 
   /**
@@ -451,12 +448,12 @@ class PassSearch {
    * maximiser's best g, a value of g there, is <= 0 and it would add nothing.
    */
   private surelyBelowMask(i: number, k: number): boolean {
-    return this.elm1[i]! + this.reachDeg(i, k) - this.maskLowDeg[i]! + 1e-9 <= 0;
+    return this.elevationBounds(i, k) && this.elBounds[1]! - this.maskLowDeg[i]! + 1e-9 <= 0;
   }
 
   /** True when g cannot fall to 0 on [times[k-2], times[k]] (site i): the dip's minimiser would not split the window. */
   private surelyAboveMask(i: number, k: number): boolean {
-    return this.elm1[i]! - this.reachDeg(i, k) - this.maskHighDeg[i]! - 1e-9 > 0;
+    return this.elevationBounds(i, k) && this.elBounds[0]! - this.maskHighDeg[i]! - 1e-9 > 0;
   }
 
   /** Close site i's window at losMs (look read from the memo or evaluated). */

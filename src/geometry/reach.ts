@@ -1,7 +1,8 @@
 /**
  * How far an Earth orbiter can get from one known state within a short time, and how much
- * that can change its elevation seen from a station: a bound that lets the contact search
- * pass over a refinement whose answer is known in advance (passes.ts).
+ * that can change its direction seen from a station: bounds that let the contact search
+ * (passes.ts) and the Sun-outage search (sun-outage.ts) pass over work whose answer is
+ * known in advance.
  *
  * Model (Taylor's theorem with a bound on the second derivative): for |t - t0| <= tau,
  *   |r(t) - r(t0)| <= |v(t0)| tau + A tau^2 / 2,
@@ -12,13 +13,14 @@
  * that the A it implies is no larger (a consistent bound), else no bound is given.
  * The least radius rMin follows from the radial speed: d2|r|/dt2 >= -A.
  * Margins: the velocity is taken 2 % + 0.01 km/s high (an SGP4 velocity is its position's
- * derivative to m/s), gravity taken twice, plus 1 km on the radius.
+ * derivative to m/s), gravity taken twice, plus 1 km on every deviation.
  * Near a line: |r(t) - r(t0) - v(t0)(t - t0)| <= |dv| tau + A tau^2 / 2, dv the velocity's margin.
- * Elevation: a ball of radius rho at distance d is seen within asin(rho / d) of its
- * centre's direction, and elevation changes no faster than direction (1-Lipschitz).
+ * Elevation: a point within dev of one at distance d is seen within asin(dev / d) of its
+ * direction, and elevation changes no faster than direction (1-Lipschitz).
  * Units: km, km/s, s, degrees.
  */
 import { WGS84_EARTH_ROTATION_RAD_S, WGS84_GM_KM3_S2 } from './earth.js';
+import type { Site } from './types.js';
 
 /** Assumed (and checked) bound on the Earth-fixed acceleration, km/s^2 (about 2.5 g). */
 const A0_KM_S2 = 0.025;
@@ -56,15 +58,6 @@ function speedBoundKmS(state: Float64Array): number {
 }
 
 /**
- * Radius of a ball around the position of `state` (ECEF km, km/s) that holds the orbiter for
- * |t - t0| <= tauS, km; NaN when no bound holds (too close to the Earth, or too fast).
- */
-export function reachRadiusKm(state: Float64Array, tauS: number): number {
-  const a = accelerationBoundKmS2(state, tauS);
-  return a >= 0 ? speedBoundKmS(state) * tauS + 0.5 * a * tauS * tauS + 1 : Number.NaN;
-}
-
-/**
  * Largest distance of the orbiter from the straight line r0 + v0 (t - t0) over
  * |t - t0| <= tauS, km (the velocity's margin times tau, plus A tau^2 / 2, plus 1 km);
  * NaN when no bound holds.
@@ -75,7 +68,60 @@ export function lineDeviationKm(state: Float64Array, tauS: number): number {
   return a >= 0 ? dv * tauS + 0.5 * a * tauS * tauS + 1 : Number.NaN;
 }
 
-/** Largest change of elevation (or of any direction) of a point within rhoKm of one at rangeKm, deg; Infinity when rho >= range. */
-export function reachAngleDeg(rhoKm: number, rangeKm: number): number {
-  return rhoKm < rangeKm ? Math.asin(rhoKm / rangeKm) * RAD_TO_DEG : Number.POSITIVE_INFINITY;
+/**
+ * Bounds on the elevation from `site` of the orbiter of `state` (ECEF km, km/s, at t0) over
+ * |t - t0| <= tauS, deg, into out[0] (lowest) and out[1] (highest); false when no bound holds.
+ * The orbiter stays within lineDeviationKm of the tangent piece A..B = r0 -/+ v0 tau, whose
+ * directions from the site sweep the great-circle arc between those of A and B: the arc's
+ * elevations lie between its ends' and, when its highest (lowest) point lies inside it,
+ * that point's, +/- asin(deviation / least distance to the piece) (1e-7 deg for rounding).
+ */
+export function elevationBoundsDeg(site: Site, state: Float64Array, tauS: number, out: Float64Array): boolean {
+  const devKm = lineDeviationKm(state, tauS);
+  if (!(devKm >= 0)) return false;
+  const s = site.ecefKm;
+  const ax = state[0]! - state[3]! * tauS - s[0];
+  const ay = state[1]! - state[4]! * tauS - s[1];
+  const az = state[2]! - state[5]! * tauS - s[2];
+  const dx = 2 * state[3]! * tauS;
+  const dy = 2 * state[4]! * tauS;
+  const dz = 2 * state[5]! * tauS;
+  const bx = ax + dx;
+  const by = ay + dy;
+  const bz = az + dz;
+  const dd = dx * dx + dy * dy + dz * dz;
+  const w = dd > 0 ? Math.min(1, Math.max(0, -(ax * dx + ay * dy + az * dz) / dd)) : 0;
+  const nearKm = Math.sqrt((ax + w * dx) ** 2 + (ay + w * dy) ** 2 + (az + w * dz) ** 2);
+  if (!(nearKm > devKm)) return false;
+  const na = Math.sqrt(ax * ax + ay * ay + az * az);
+  const nb = Math.sqrt(bx * bx + by * by + bz * bz);
+  const u = site.up;
+  const sinA = (u[0] * ax + u[1] * ay + u[2] * az) / na;
+  const sinB = (u[0] * bx + u[1] * by + u[2] * bz) / nb;
+  let lo = Math.min(sinA, sinB);
+  let hi = Math.max(sinA, sinB);
+  // plane of the arc: n = a x b
+  let nx = ay * bz - az * by;
+  let ny = az * bx - ax * bz;
+  let nz = ax * by - ay * bx;
+  const nn = Math.sqrt(nx * nx + ny * ny + nz * nz);
+  if (!(nn > 1e-9 * na * nb)) return false; // a degenerate (nearly radial) piece: no bound
+  nx /= nn;
+  ny /= nn;
+  nz /= nn;
+  const un = u[0] * nx + u[1] * ny + u[2] * nz;
+  // the up direction projected on the plane: the great circle's highest point (its opposite the lowest)
+  const px = u[0] - un * nx;
+  const py = u[1] - un * ny;
+  const pz = u[2] - un * nz;
+  const pn = Math.sqrt(px * px + py * py + pz * pz);
+  // P between A and B along the arc: (A x P) . n >= 0 and (P x B) . n >= 0
+  const c1 = (ay * pz - az * py) * nx + (az * px - ax * pz) * ny + (ax * py - ay * px) * nz;
+  const c2 = (py * bz - pz * by) * nx + (pz * bx - px * bz) * ny + (px * by - py * bx) * nz;
+  if (c1 >= 0 && c2 >= 0) hi = Math.max(hi, pn);
+  if (c1 <= 0 && c2 <= 0) lo = Math.min(lo, -pn); // -P between A and B
+  const slackDeg = Math.asin(devKm / nearKm) * RAD_TO_DEG + 1e-7;
+  out[0] = Math.asin(Math.max(-1, Math.min(1, lo))) * RAD_TO_DEG - slackDeg;
+  out[1] = Math.asin(Math.max(-1, Math.min(1, hi))) * RAD_TO_DEG + slackDeg;
+  return true;
 }
