@@ -28,7 +28,7 @@ import type { Mask, Span } from '../scenario/types.js';
 import { maskElevationDeg, prepareMask, type PreparedMask } from './mask.js';
 import { brentBoundary, brentMax, type MaxResult } from './roots.js';
 import { lookFrom, newLook } from './topocentric.js';
-import { elevationBoundsDeg } from './reach.js';
+import { elevationBoundsDeg, lineDeviationKm } from './reach.js';
 import { sgp4SmoothOver } from './targets/sgp4.js';
 import {
   DEFAULT_PEAK_TOLERANCE_S,
@@ -152,7 +152,7 @@ class PassSearch {
   /** The scan state at the previous sample, and whether bounds hold about it (for sample reachK). */
   private readonly prevState = new Float64Array(6);
   private reachK = -1;
-  private reachOk = false;
+  private reachDevKm = Number.NaN;
   private reachTauS = 0;
   private readonly elBounds = new Float64Array(2);
 
@@ -437,10 +437,11 @@ class PassSearch {
       const t0 = this.times[k - 2]!;
       const t1 = this.times[k - 1]!;
       const t2 = this.times[k]!;
-      this.reachOk = this.target.failedAtMs === undefined && sgp4SmoothOver(this.target, t0, t2);
       this.reachTauS = Math.max(t1 - t0, t2 - t1) / 1000;
+      this.reachDevKm =
+        this.target.failedAtMs === undefined && sgp4SmoothOver(this.target, t0, t2) ? lineDeviationKm(this.prevState, this.reachTauS) : Number.NaN;
     }
-    return this.reachOk && elevationBoundsDeg(this.sites[i]!, this.prevState, this.reachTauS, this.elBounds);
+    return this.reachDevKm >= 0 && elevationBoundsDeg(this.sites[i]!, this.prevState, this.reachTauS, this.elBounds, this.reachDevKm);
   }
 
   /**

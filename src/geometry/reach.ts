@@ -22,6 +22,11 @@
 import { WGS84_EARTH_ROTATION_RAD_S, WGS84_GM_KM3_S2 } from './earth.js';
 import type { Site } from './types.js';
 
+/** |(x, y, z)| (a bound's input: sqrt, not the slower Math.hypot). */
+function norm3(x: number, y: number, z: number): number {
+  return Math.sqrt(x * x + y * y + z * z);
+}
+
 /** Assumed (and checked) bound on the Earth-fixed acceleration, km/s^2 (about 2.5 g). */
 const A0_KM_S2 = 0.025;
 /** Below this geocentric radius no bound is given, km (SGP4 ends a track below the Earth's surface). */
@@ -38,7 +43,7 @@ export function accelerationBoundKmS2(state: Float64Array, tauS: number): number
   const x = state[0]!;
   const y = state[1]!;
   const z = state[2]!;
-  const r = Math.hypot(x, y, z);
+  const r = Math.sqrt(x * x + y * y + z * z);
   const v = speedBoundKmS(state);
   const radialKmS = (1.02 * Math.abs(x * state[3]! + y * state[4]! + z * state[5]!)) / r + 0.01;
   const sag0 = 0.5 * A0_KM_S2 * tauS * tauS;
@@ -54,7 +59,7 @@ export function accelerationBoundKmS2(state: Float64Array, tauS: number): number
 
 /** The state's speed with the margin for the derivative of an SGP4 position (2 % + 0.01 km/s), km/s. */
 function speedBoundKmS(state: Float64Array): number {
-  return 1.02 * Math.hypot(state[3]!, state[4]!, state[5]!) + 0.01;
+  return 1.02 * norm3(state[3]!, state[4]!, state[5]!) + 0.01;
 }
 
 /**
@@ -64,7 +69,7 @@ function speedBoundKmS(state: Float64Array): number {
  */
 export function lineDeviationKm(state: Float64Array, tauS: number): number {
   const a = accelerationBoundKmS2(state, tauS);
-  const dv = 0.02 * Math.hypot(state[3]!, state[4]!, state[5]!) + 0.01;
+  const dv = 0.02 * norm3(state[3]!, state[4]!, state[5]!) + 0.01;
   return a >= 0 ? dv * tauS + 0.5 * a * tauS * tauS + 1 : Number.NaN;
 }
 
@@ -75,9 +80,9 @@ export function lineDeviationKm(state: Float64Array, tauS: number): number {
  * directions from the site sweep the great-circle arc between those of A and B: the arc's
  * elevations lie between its ends' and, when its highest (lowest) point lies inside it,
  * that point's, +/- asin(deviation / least distance to the piece) (1e-7 deg for rounding).
+ * devKm: lineDeviationKm(state, tauS), when the caller has it.
  */
-export function elevationBoundsDeg(site: Site, state: Float64Array, tauS: number, out: Float64Array): boolean {
-  const devKm = lineDeviationKm(state, tauS);
+export function elevationBoundsDeg(site: Site, state: Float64Array, tauS: number, out: Float64Array, devKm = lineDeviationKm(state, tauS)): boolean {
   if (!(devKm >= 0)) return false;
   const s = site.ecefKm;
   const ax = state[0]! - state[3]! * tauS - s[0];

@@ -221,10 +221,10 @@ export class SunOutageSearch {
       // least distance from the site to the piece
       const dd = dx * dx + dy * dy + dz * dz;
       const w = dd > 0 ? Math.min(1, Math.max(0, -(ax * dx + ay * dy + az * dz) / dd)) : 0;
-      const nearKm = Math.hypot(ax + w * dx, ay + w * dy, az + w * dz);
+      const nearKm = Math.sqrt((ax + w * dx) ** 2 + (ay + w * dy) ** 2 + (az + w * dz) ** 2);
       if (!(nearKm > devKm)) return false;
-      const na = Math.hypot(ax, ay, az);
-      const nb = Math.hypot(bx, by, bz);
+      const na = Math.sqrt(ax * ax + ay * ay + az * az);
+      const nb = Math.sqrt(bx * bx + by * by + bz * bz);
       e[0] = ax / na;
       e[1] = ay / na;
       e[2] = az / na;
@@ -236,7 +236,7 @@ export class SunOutageSearch {
       const px = p[0]! - s[0];
       const py = p[1]! - s[1];
       const pz = p[2]! - s[2];
-      const np = Math.hypot(px, py, pz);
+      const np = Math.sqrt(px * px + py * py + pz * pz);
       u[0] = px / np;
       u[1] = py / np;
       u[2] = pz / np;
