@@ -27,7 +27,7 @@ import { ModelRangeError } from '../errors.js';
 import type { Mask, Span } from '../scenario/types.js';
 import { maskElevationDeg, prepareMask, type PreparedMask } from './mask.js';
 import { brentBoundary, brentMax, type MaxResult } from './roots.js';
-import { lookFrom, newLook } from './topocentric.js';
+import { elevationFrom, lookFrom, newLook } from './topocentric.js';
 import { elevationBoundsDeg, lineDeviationKm } from './reach.js';
 import { sgp4SmoothOver } from './targets/sgp4.js';
 import {
@@ -307,11 +307,21 @@ class PassSearch {
       }
       // every site's g from this one state first: a refinement below moves the target's state
       for (let i = 0; i < n; i++) {
-        const look = lookFrom(this.sites[i]!, this.scanState, this.scanLook);
-        let g = look.elevationDeg - maskElevationDeg(this.masks[i]!, look.azimuthDeg);
+        const mask = this.masks[i]!;
+        let el: number;
+        let g: number;
+        if (mask.kind === 'constant') {
+          // no azimuth needed: the elevation alone (the same number as lookFrom's)
+          el = elevationFrom(this.sites[i]!, this.scanState);
+          g = el - mask.elevationDeg;
+        } else {
+          const look = lookFrom(this.sites[i]!, this.scanState, this.scanLook);
+          el = look.elevationDeg;
+          g = el - maskElevationDeg(mask, look.azimuthDeg);
+        }
         if (this.sight) g = Math.min(g, this.target.sightMarginDeg!(this.sites[i]!.ecefKm));
         this.gNow[i] = g;
-        this.elNow[i] = look.elevationDeg;
+        this.elNow[i] = el;
       }
       for (let i = 0; i < n; i++) {
         const g = this.gNow[i]!;
