@@ -27,7 +27,9 @@ import { ModelRangeError } from '../errors.js';
 import type { Mask, Span } from '../scenario/types.js';
 import { maskElevationDeg, prepareMask, type PreparedMask } from './mask.js';
 import { brentBoundary, brentMax, type MaxResult } from './roots.js';
-import { lookFrom, newLook } from './topocentric.js';
+import { elevationFrom, lookFrom, newLook } from './topocentric.js';
+import { elevationBoundsDeg, lineDeviationKm } from './reach.js';
+import { sgp4SmoothOver } from './targets/sgp4.js';
 import {
   DEFAULT_PEAK_TOLERANCE_S,
   DEFAULT_SEARCH,
@@ -72,6 +74,31 @@ export function findPasses(
   return new PassSearch(target, sites, masks.map(asPreparedMask), span, stepS, opts).run();
 }
 
+/** findPasses with the slant ranges the search evaluated at each window's AOS, TCA and LOS. */
+export interface PassesWithRanges {
+  passes: Pass[];
+  /**
+   * Per pass: [AOS, TCA, LOS] slant range, km, from lookFrom of the target's state at exactly
+   * that time (the search's own evaluation); NaN where the search has none at hand.
+   */
+  rangesKm: Map<Pass, Float64Array>;
+}
+
+export function findPassesWithRanges(
+  target: Target,
+  sites: readonly Site[],
+  masks: readonly (Mask | PreparedMask)[],
+  span: Span,
+  opts: SearchOptions = DEFAULT_SEARCH,
+): PassesWithRanges {
+  const stepS = opts.scanStepS ?? target.scanStepS;
+  checkSearchInputs(sites, masks, span, stepS);
+  if (!(opts.edgeToleranceS > 0)) throw new ModelRangeError(MODEL, 'edgeToleranceS', opts.edgeToleranceS, '> 0 s');
+  const search = new PassSearch(target, sites, masks.map(asPreparedMask), span, stepS, opts);
+  const passes = search.run();
+  return { passes, rangesKm: search.rangesKm };
+}
+
 class PassSearch {
   private readonly nSites: number;
   private readonly times: Float64Array;
@@ -93,6 +120,10 @@ class PassSearch {
   private readonly memoSite: Int32Array;
   private readonly memoAz: Float64Array;
   private readonly memoEl: Float64Array;
+  private readonly memoRange: Float64Array;
+  /** Slant ranges at AOS, TCA and LOS of each pass (findPassesWithRanges). */
+  readonly rangesKm = new Map<Pass, Float64Array>();
+  private readonly aosRange: Float64Array;
   private memoN = 0;
   // the function the solvers see
   private curSite = 0;
@@ -115,6 +146,15 @@ class PassSearch {
   private readonly sight: boolean;
   private readonly gNow: Float64Array;
   private readonly elNow: Float64Array;
+  /** Lowest and highest elevation of each site's mask, deg. */
+  private readonly maskLowDeg: Float64Array;
+  private readonly maskHighDeg: Float64Array;
+  /** The scan state at the previous sample, and whether bounds hold about it (for sample reachK). */
+  private readonly prevState = new Float64Array(6);
+  private reachK = -1;
+  private reachDevKm = Number.NaN;
+  private reachTauS = 0;
+  private readonly elBounds = new Float64Array(2);
 
   constructor(
     private readonly target: Target,
@@ -143,6 +183,7 @@ class PassSearch {
     this.memoSite = new Int32Array(memoSize);
     this.memoAz = new Float64Array(memoSize);
     this.memoEl = new Float64Array(memoSize);
+    this.memoRange = new Float64Array(memoSize);
     const n = this.nSites;
     this.gNow = new Float64Array(n);
     this.elNow = new Float64Array(n);
@@ -156,6 +197,14 @@ class PassSearch {
     this.aosEl = new Float64Array(n);
     this.bestEl = new Float64Array(n);
     this.bestK = new Int32Array(n);
+    this.aosRange = new Float64Array(n);
+    this.maskLowDeg = new Float64Array(n);
+    this.maskHighDeg = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const m = masks[i]!;
+      this.maskLowDeg[i] = m.kind === 'constant' ? m.elevationDeg : Math.min(...m.elevationDeg);
+      this.maskHighDeg[i] = m.kind === 'constant' ? m.elevationDeg : Math.max(...m.elevationDeg);
+    }
     this.gOfS = (s: number) => this.gAt(this.refMs + s * 1000);
     this.elOfS = (s: number) => {
       this.gAt(this.refMs + s * 1000);
@@ -172,6 +221,7 @@ class PassSearch {
     if (!this.target.stateEcefAt(tMs, this.refState)) {
       this.memoAz[m] = 0;
       this.memoEl[m] = NO_STATE_G;
+      this.memoRange[m] = Number.NaN;
       this.lastEl = NO_STATE_G;
       return NO_STATE_G;
     }
@@ -179,6 +229,7 @@ class PassSearch {
     const look = lookFrom(site, this.refState, this.refLook);
     this.memoAz[m] = look.azimuthDeg;
     this.memoEl[m] = look.elevationDeg;
+    this.memoRange[m] = look.rangeKm;
     this.lastEl = look.elevationDeg;
     const g = look.elevationDeg - maskElevationDeg(this.masks[this.curSite]!, look.azimuthDeg);
     return this.sight ? Math.min(g, this.target.sightMarginDeg!(site.ecefKm)) : g;
@@ -194,6 +245,7 @@ class PassSearch {
       if (this.memoT[m] === tMs && this.memoSite[m] === site) {
         this.refLook.azimuthDeg = this.memoAz[m]!;
         this.refLook.elevationDeg = this.memoEl[m]!;
+        this.refLook.rangeKm = this.memoRange[m]!;
         return;
       }
     }
@@ -201,6 +253,19 @@ class PassSearch {
     const m = (this.memoN - 1) % size;
     this.refLook.azimuthDeg = this.memoAz[m]!;
     this.refLook.elevationDeg = this.memoEl[m]!;
+    this.refLook.rangeKm = this.memoRange[m]!;
+  }
+
+  /** Slant range at tMs for the current site if the memo holds that evaluation, else NaN. */
+  private memoRangeAt(tMs: number): number {
+    const size = this.memoT.length;
+    const first = Math.max(0, this.memoN - size);
+    const site = this.curSite;
+    for (let j = this.memoN - 1; j >= first; j--) {
+      const m = j % size;
+      if (this.memoT[m] === tMs && this.memoSite[m] === site) return this.memoRange[m]!;
+    }
+    return Number.NaN;
   }
 
   /** Visible-side time of the g crossing between (aMs, ga) and (bMs, gb). */
@@ -242,11 +307,21 @@ class PassSearch {
       }
       // every site's g from this one state first: a refinement below moves the target's state
       for (let i = 0; i < n; i++) {
-        const look = lookFrom(this.sites[i]!, this.scanState, this.scanLook);
-        let g = look.elevationDeg - maskElevationDeg(this.masks[i]!, look.azimuthDeg);
+        const mask = this.masks[i]!;
+        let el: number;
+        let g: number;
+        if (mask.kind === 'constant') {
+          // no azimuth needed: the elevation alone (the same number as lookFrom's)
+          el = elevationFrom(this.sites[i]!, this.scanState);
+          g = el - mask.elevationDeg;
+        } else {
+          const look = lookFrom(this.sites[i]!, this.scanState, this.scanLook);
+          el = look.elevationDeg;
+          g = el - maskElevationDeg(mask, look.azimuthDeg);
+        }
         if (this.sight) g = Math.min(g, this.target.sightMarginDeg!(this.sites[i]!.ecefKm));
         this.gNow[i] = g;
-        this.elNow[i] = look.elevationDeg;
+        this.elNow[i] = el;
       }
       for (let i = 0; i < n; i++) {
         const g = this.gNow[i]!;
@@ -257,6 +332,7 @@ class PassSearch {
         this.gm1[i] = g;
         this.elm1[i] = this.elNow[i]!;
       }
+      this.prevState.set(this.scanState);
       if (trackEnded) break;
     }
     // close windows still open at the last sample (span end, or the track's end)
@@ -302,6 +378,7 @@ class PassSearch {
       this.lookAt(aosMs);
       this.aosAz[i] = this.refLook.azimuthDeg;
       this.aosEl[i] = this.refLook.elevationDeg;
+      this.aosRange[i] = this.refLook.rangeKm;
     }
     this.bestEl[i] = Number.NEGATIVE_INFINITY;
     this.bestK[i] = -1;
@@ -324,7 +401,7 @@ class PassSearch {
         if (t <= this.startMs) this.open[i] = 0; // ended before the span
         else if (tPrev >= this.endMs) this.emit(i, Number.POSITIVE_INFINITY, Number.NaN, Number.NaN, false);
         else this.emitAt(i, this.boundary(tPrev, gPrev, t, g), false);
-      } else if (k >= 2 && gPrev2 > 0 && gPrev < gPrev2 && gPrev <= g) {
+      } else if (k >= 2 && gPrev2 > 0 && gPrev < gPrev2 && gPrev <= g && !this.surelyAboveMask(i, k)) {
         // a dip inside the window: does it go below the mask between samples?
         const tPrev2 = times[k - 2]!;
         const r = this.extremumG(tPrev2, t, tPrev, gPrev, -1);
@@ -344,7 +421,7 @@ class PassSearch {
       if (t <= this.startMs) this.openWindow(i, Number.NEGATIVE_INFINITY); // rose before the span
       else if (tPrev >= this.endMs) this.openWindow(i, Number.POSITIVE_INFINITY); // rises after it
       else this.openWindow(i, this.boundary(tPrev, gPrev, t, g));
-    } else if (k >= 2 && gPrev > gPrev2 && gPrev >= g && !(gPrev > 0) && !(gPrev2 > 0)) {
+    } else if (k >= 2 && gPrev > gPrev2 && gPrev >= g && !(gPrev > 0) && !(gPrev2 > 0) && !this.surelyBelowMask(i, k)) {
       // a peak between samples that are all below the mask: a short window?
       const tPrev2 = times[k - 2]!;
       const r = this.extremumG(tPrev2, t, tPrev, gPrev, 1);
@@ -359,20 +436,52 @@ class PassSearch {
     }
   }
 
+  /**
+   * Bounds of site i's elevation (reach.ts elevationBoundsDeg) over [times[k-2], times[k]]
+   * from the target's state at times[k-1], into elBounds; false when none holds (not a
+   * one-set SGP4 track there, a track that has failed, a degenerate geometry).
+   */
+  private elevationBounds(i: number, k: number): boolean {
+    if (this.reachK !== k) {
+      this.reachK = k;
+      const t0 = this.times[k - 2]!;
+      const t1 = this.times[k - 1]!;
+      const t2 = this.times[k]!;
+      this.reachTauS = Math.max(t1 - t0, t2 - t1) / 1000;
+      this.reachDevKm =
+        this.target.failedAtMs === undefined && sgp4SmoothOver(this.target, t0, t2) ? lineDeviationKm(this.prevState, this.reachTauS) : Number.NaN;
+    }
+    return this.reachDevKm >= 0 && elevationBoundsDeg(this.sites[i]!, this.prevState, this.reachTauS, this.elBounds, this.reachDevKm);
+  }
+
+  /**
+   * True when g cannot rise above 0 on [times[k-2], times[k]] (site i): then the short-window
+   * maximiser's best g, a value of g there, is <= 0 and it would add nothing.
+   */
+  private surelyBelowMask(i: number, k: number): boolean {
+    return this.elevationBounds(i, k) && this.elBounds[1]! - this.maskLowDeg[i]! + 1e-9 <= 0;
+  }
+
+  /** True when g cannot fall to 0 on [times[k-2], times[k]] (site i): the dip's minimiser would not split the window. */
+  private surelyAboveMask(i: number, k: number): boolean {
+    return this.elevationBounds(i, k) && this.elBounds[0]! - this.maskHighDeg[i]! - 1e-9 > 0;
+  }
+
   /** Close site i's window at losMs (look read from the memo or evaluated). */
   private emitAt(i: number, losMs: number, trackEnded: boolean): void {
     this.lookAt(losMs);
-    this.emit(i, losMs, this.refLook.azimuthDeg, this.refLook.elevationDeg, trackEnded);
+    this.emit(i, losMs, this.refLook.azimuthDeg, this.refLook.elevationDeg, trackEnded, this.refLook.rangeKm);
   }
 
   /** Cut site i's open window [aosRaw, losMs] to the span, refine its peak, record it. */
-  private emit(i: number, losRawMs: number, losAzIn: number, losElIn: number, trackEnded: boolean): void {
+  private emit(i: number, losRawMs: number, losAzIn: number, losElIn: number, trackEnded: boolean, losRangeIn = Number.NaN): void {
     this.open[i] = 0;
     const aosRaw = this.aosRaw[i]!;
     if (losRawMs <= this.startMs || aosRaw >= this.endMs) return;
     let aosMs = aosRaw;
     let aosAz = this.aosAz[i]!;
     let aosEl = this.aosEl[i]!;
+    let aosRange = this.aosRange[i]!;
     let aosClipped = false;
     if (aosMs < this.startMs) {
       aosMs = this.startMs;
@@ -380,10 +489,12 @@ class PassSearch {
       this.lookAt(aosMs);
       aosAz = this.refLook.azimuthDeg;
       aosEl = this.refLook.elevationDeg;
+      aosRange = this.refLook.rangeKm;
     }
     let losMs = losRawMs;
     let losAz = losAzIn;
     let losEl = losElIn;
+    let losRange = losRangeIn;
     let losClipped = false;
     if (losMs > this.endMs) {
       losMs = this.endMs;
@@ -394,6 +505,7 @@ class PassSearch {
       this.lookAt(losMs);
       losAz = this.refLook.azimuthDeg;
       losEl = this.refLook.elevationDeg;
+      losRange = this.refLook.rangeKm;
     }
     // peak: refine around the best sample, or over the whole (short) window
     let lo = aosMs;
@@ -415,15 +527,18 @@ class PassSearch {
     const r = brentMax(this.elOfS, 0, (hi - lo) / 1000, (x0 - lo) / 1000, e0, this.peakTolS, this.maxIter, this.maxOut);
     let tcaMs = lo + r.x * 1000;
     let maxEl = r.f;
+    let tcaRange = this.memoRangeAt(tcaMs);
     if (aosEl > maxEl) {
       maxEl = aosEl;
       tcaMs = aosMs;
+      tcaRange = aosRange;
     }
     if (losEl > maxEl) {
       maxEl = losEl;
       tcaMs = losMs;
+      tcaRange = losRange;
     }
-    this.passes.push({
+    const pass: Pass = {
       spacecraftId: this.target.spacecraftId,
       stationId: this.sites[i]!.stationId,
       aosMs,
@@ -437,6 +552,8 @@ class PassSearch {
       aosClipped,
       losClipped,
       losTrackEnded: trackEnded,
-    });
+    };
+    this.passes.push(pass);
+    this.rangesKm.set(pass, Float64Array.of(aosRange, tcaRange, losRange));
   }
 }

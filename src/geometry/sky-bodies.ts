@@ -53,6 +53,15 @@ export class SkyBodies {
   /** ECEF positions at `atMs`, km. */
   readonly sunEcefKm = new Float64Array(3);
   readonly moonEcefKm = new Float64Array(3);
+  /** Geocentric unit vectors towards them at `atMs` (ECEF), for farFromBoth. */
+  private readonly sunU = new Float64Array(3);
+  private readonly moonU = new Float64Array(3);
+  private unitsAtMs = Number.NaN;
+  /** atGrid's grid and the positions kept for it. */
+  private gridOriginMs = Number.NaN;
+  private gridStepMs = Number.NaN;
+  private gridPos: Float64Array | undefined;
+  private gridSet: Uint8Array | undefined;
   private atMs = Number.NaN;
 
   constructor(span: Span) {
@@ -70,6 +79,43 @@ export class SkyBodies {
     this.eqd = new EqdTable(span.startMs - PAD_MS / 2, span.endMs + PAD_MS / 2);
   }
 
+  /**
+   * at(tMs) for a time of a grid, tMs = originMs + k stepMs: the positions at() computed the
+   * first time any caller asked for grid point k are kept and copied back (the link sampler's
+   * grid is the same for every spacecraft of a run). The same numbers as at(tMs).
+   */
+  atGrid(originMs: number, stepMs: number, k: number, tMs: number): void {
+    if (tMs === this.atMs) return;
+    if (originMs !== this.gridOriginMs || stepMs !== this.gridStepMs) {
+      this.gridOriginMs = originMs;
+      this.gridStepMs = stepMs;
+      const n = Math.max(0, Math.ceil((this.t0Ms + this.n * SKY_SUN_STEP_S * 1000 - originMs) / stepMs) + 1);
+      this.gridPos = new Float64Array(6 * n);
+      this.gridSet = new Uint8Array(n);
+    }
+    const set = this.gridSet!;
+    if (!(k >= 0 && k < set.length) || tMs !== originMs + k * stepMs) {
+      this.at(tMs);
+      return;
+    }
+    const g = this.gridPos!;
+    const o = 6 * k;
+    if (set[k] === 1) {
+      this.atMs = tMs;
+      for (let i = 0; i < 3; i++) {
+        this.sunEcefKm[i] = g[o + i]!;
+        this.moonEcefKm[i] = g[o + 3 + i]!;
+      }
+      return;
+    }
+    this.at(tMs);
+    for (let i = 0; i < 3; i++) {
+      g[o + i] = this.sunEcefKm[i]!;
+      g[o + 3 + i] = this.moonEcefKm[i]!;
+    }
+    set[k] = 1;
+  }
+
   /** Moves both bodies to tMs (cheap when tMs has not changed). */
   at(tMs: number): void {
     if (tMs === this.atMs) return;
@@ -82,6 +128,26 @@ export class SkyBodies {
     this.toEcef(sidereal, this.sunEcefKm);
     this.moon.stateAt(tMs, this.eqj);
     this.toEcef(sidereal, this.moonEcefKm);
+  }
+
+  /**
+   * True when, at the time last given to `at`, the boresight (bx, by, bz) (site -> target,
+   * ECEF km, length rangeKm) is surely more than `sunDeg` from the Sun's centre and more
+   * than `moonDeg` from the Moon's, as seen from a site on or near the Earth (|site| < 7,000 km):
+   * cosines against the geocentric directions with the parallax as margin
+   * (asin(7,000 km / 1.47e8 km) < 0.003 deg for the Sun, asin(7,000 km / 356,000 km) < 1.13 deg
+   * for the Moon at perigee), plus 0.01 deg for rounding. A cheap test; false is no answer.
+   */
+  farFromBoth(bx: number, by: number, bz: number, rangeKm: number, cosSunLimit: number, cosMoonLimit: number): boolean {
+    if (this.unitsAtMs !== this.atMs) {
+      this.unitsAtMs = this.atMs;
+      unit(this.sunEcefKm, this.sunU);
+      unit(this.moonEcefKm, this.moonU);
+    }
+    const u = this.sunU;
+    if ((bx * u[0]! + by * u[1]! + bz * u[2]!) / rangeKm >= cosSunLimit) return false;
+    const m = this.moonU;
+    return (bx * m[0]! + by * m[1]! + bz * m[2]!) / rangeKm < cosMoonLimit;
   }
 
   private toEcef(sidereal: number, out: Float64Array): void {
@@ -116,6 +182,26 @@ export class SkyBodies {
     const c = dot / (Math.hypot(t[0]!, t[1]!, t[2]!) * Math.hypot(u[0]!, u[1]!, u[2]!));
     return Math.acos(Math.max(-1, Math.min(1, c))) * RAD_TO_DEG;
   }
+}
+
+/** Margins of farFromBoth over the wanted offsets, deg: parallax bound plus rounding (see there). */
+export const FAR_SUN_MARGIN_DEG = 0.003 + 0.01;
+export const FAR_MOON_MARGIN_DEG = 1.13 + 0.01;
+
+/**
+ * The cosine limit farFromBoth takes for "more than offsetDeg (plus marginDeg) away", or
+ * -2 (never far) when that angle reaches 179 deg.
+ */
+export function farCosLimit(offsetDeg: number, marginDeg: number): number {
+  const deg = offsetDeg + marginDeg;
+  return deg < 179 ? Math.cos(deg / RAD_TO_DEG) : -2;
+}
+
+function unit(p: Float64Array, out: Float64Array): void {
+  const n = Math.sqrt(p[0]! * p[0]! + p[1]! * p[1]! + p[2]! * p[2]!);
+  out[0] = p[0]! / n;
+  out[1] = p[1]! / n;
+  out[2] = p[2]! / n;
 }
 
 function distanceKm(p: Float64Array, s: readonly number[]): number {

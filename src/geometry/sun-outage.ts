@@ -21,6 +21,8 @@
  */
 import type { SkyBodies, BodyAngles } from './sky-bodies.js';
 import { newBodyAngles } from './sky-bodies.js';
+import { lineDeviationKm } from './reach.js';
+import { sgp4SmoothOver } from './targets/sgp4.js';
 import type { Site, Target } from './types.js';
 
 export const SUN_OUTAGE_BEAMWIDTHS = 1;
@@ -31,6 +33,13 @@ export const SUN_OUTAGE_PREFILTER_MAX_S = 3 * 3600;
 /** The Sun's apparent motion in Earth-fixed axes, deg/s (Earth rotation, 360 deg per day). */
 const SUN_RATE_DEG_S = 360 / 86_400;
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
+/** Half-length of the pieces of surelyClear, s. */
+export const SUN_OUTAGE_SCREEN_HALF_S = 60;
+/** Bound on the Sun's angular rate seen from a station in Earth-fixed axes, deg/s (sidereal rotation 0.004178 plus the annual motion). */
+const SUN_RATE_BOUND_DEG_S = 0.0042;
+/** Bound on the Sun's angular radius, deg (0.272 at perihelion). */
+const SUN_RADIUS_BOUND_DEG = 0.3;
+const RAD_TO_DEG = 180 / Math.PI;
 
 export interface SunOutageWindow {
   startMs: number;
@@ -44,6 +53,8 @@ export class SunOutageSearch {
   private readonly state = new Float64Array(6);
   private readonly angles: BodyAngles = newBodyAngles();
   private readonly dir = new Float64Array(3);
+  private readonly ends: number[] = [0, 0, 0, 0, 0, 0];
+  private readonly sunDir: number[] = [0, 0, 0];
 
   constructor(
     private readonly target: Target,
@@ -97,6 +108,7 @@ export class SunOutageSearch {
     const out: SunOutageWindow[] = [];
     if (!(hpbwDeg > 0) || !(losMs > aosMs)) return out;
     if (this.clearOf(site, aosMs, losMs, hpbwDeg, maxElevationDeg)) return out;
+    if (this.surelyClear(site, aosMs, losMs, hpbwDeg)) return out;
     const stepMs = SUN_OUTAGE_SCAN_S * 1000;
     const n = Math.max(1, Math.ceil((losMs - aosMs) / stepMs));
     const times: number[] = [];
@@ -169,6 +181,70 @@ export class SunOutageSearch {
     }
     if (!Number.isNaN(openAt)) out.push(this.window(site, openAt, losMs, bestX, hpbwDeg));
     return out;
+  }
+
+  /**
+   * True when f > 0 all through [aosMs, losMs], proved from a few states (one per piece of up
+   * to 2 SUN_OUTAGE_SCREEN_HALF_S): around its middle state the orbiter stays within
+   * lineDeviationKm (reach.ts) of the straight line r + v (t - tm), so its direction from the
+   * site stays within asin(deviation / least distance) of the great-circle arc that line's
+   * piece sweeps; the Sun moves by at most SUN_RATE_BOUND_DEG_S. When the Sun stays further
+   * from every arc than its radius bound plus the beam limit, every f the scan below would
+   * evaluate is > 0 and it finds nothing: its answer, no outage, is given at once.
+   * One-set SGP4 tracks only (reach.ts); false is no answer.
+   */
+  private surelyClear(site: Site, aosMs: number, losMs: number, hpbwDeg: number): boolean {
+    if (this.target.failedAtMs !== undefined || !sgp4SmoothOver(this.target, aosMs, losMs)) return false;
+    const limitDeg = SUN_RADIUS_BOUND_DEG + SUN_OUTAGE_BEAMWIDTHS * hpbwDeg + 0.01;
+    const n = Math.max(1, Math.ceil((losMs - aosMs) / (2000 * SUN_OUTAGE_SCREEN_HALF_S)));
+    const halfMs = (losMs - aosMs) / (2 * n);
+    const tauS = halfMs / 1000;
+    const st = this.state;
+    const s = site.ecefKm;
+    const e = this.ends;
+    const u = this.sunDir;
+    for (let j = 0; j < n; j++) {
+      const tm = aosMs + (2 * j + 1) * halfMs;
+      if (!this.target.stateEcefAt(tm, st)) return false;
+      const devKm = lineDeviationKm(st, tauS);
+      if (!(devKm >= 0)) return false;
+      // the piece's line ends, from the site
+      const ax = st[0]! - st[3]! * tauS - s[0];
+      const ay = st[1]! - st[4]! * tauS - s[1];
+      const az = st[2]! - st[5]! * tauS - s[2];
+      const dx = 2 * st[3]! * tauS;
+      const dy = 2 * st[4]! * tauS;
+      const dz = 2 * st[5]! * tauS;
+      const bx = ax + dx;
+      const by = ay + dy;
+      const bz = az + dz;
+      // least distance from the site to the piece
+      const dd = dx * dx + dy * dy + dz * dz;
+      const w = dd > 0 ? Math.min(1, Math.max(0, -(ax * dx + ay * dy + az * dz) / dd)) : 0;
+      const nearKm = Math.sqrt((ax + w * dx) ** 2 + (ay + w * dy) ** 2 + (az + w * dz) ** 2);
+      if (!(nearKm > devKm)) return false;
+      const na = Math.sqrt(ax * ax + ay * ay + az * az);
+      const nb = Math.sqrt(bx * bx + by * by + bz * bz);
+      e[0] = ax / na;
+      e[1] = ay / na;
+      e[2] = az / na;
+      e[3] = bx / nb;
+      e[4] = by / nb;
+      e[5] = bz / nb;
+      this.sky.at(tm);
+      const p = this.sky.sunEcefKm;
+      const px = p[0]! - s[0];
+      const py = p[1]! - s[1];
+      const pz = p[2]! - s[2];
+      const np = Math.sqrt(px * px + py * py + pz * pz);
+      u[0] = px / np;
+      u[1] = py / np;
+      u[2] = pz / np;
+      const arc = arcDistanceDeg(e, 0, 3, u, 0);
+      const leastDeg = arc.minDeg - Math.asin(devKm / nearKm) * RAD_TO_DEG - SUN_RATE_BOUND_DEG_S * tauS - 1e-6;
+      if (!(leastDeg > limitDeg)) return false;
+    }
+    return true;
   }
 
   private window(site: Site, startMs: number, endMs: number, minAtMs: number, hpbwDeg: number): SunOutageWindow {

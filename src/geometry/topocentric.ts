@@ -38,6 +38,24 @@ export function lookFrom(site: Site, stateEcef: Float64Array, out: Look): Look {
   return out;
 }
 
+/**
+ * Elevation alone of stateEcef from site, deg: the same arithmetic as lookFrom's
+ * elevationDeg (same number), without the azimuth, range and range rate.
+ */
+export function elevationFrom(site: Site, stateEcef: Float64Array): number {
+  const s = site.ecefKm;
+  const dx = stateEcef[0]! - s[0];
+  const dy = stateEcef[1]! - s[1];
+  const dz = stateEcef[2]! - s[2];
+  const e = site.east;
+  const n = site.north;
+  const u = site.up;
+  const eastKm = e[0] * dx + e[1] * dy + e[2] * dz;
+  const northKm = n[0] * dx + n[1] * dy + n[2] * dz;
+  const upKm = u[0] * dx + u[1] * dy + u[2] * dz;
+  return Math.atan2(upKm, Math.sqrt(eastKm * eastKm + northKm * northKm)) * RAD_TO_DEG;
+}
+
 /** A fresh Look to be reused as `out`. */
 export function newLook(): Look {
   return { azimuthDeg: 0, elevationDeg: 0, rangeKm: 0, rangeRateKmS: 0 };

@@ -8,8 +8,8 @@
  */
 import { makeSite } from '../geometry/earth.js';
 import { prepareMask, type PreparedMask } from '../geometry/mask.js';
-import { findPasses } from '../geometry/passes.js';
-import { makeSgp4Target, elementAgeWarning } from '../geometry/targets/sgp4.js';
+import { findPassesWithRanges } from '../geometry/passes.js';
+import { makeSgp4Target, elementAgeWarning, isSgp4Target } from '../geometry/targets/sgp4.js';
 import { makeMoonTarget } from '../geometry/targets/moon.js';
 import { makeFixedSkyTarget } from '../geometry/targets/fixedSky.js';
 import { makeEphemerisTarget } from '../geometry/targets/ephemeris.js';
@@ -47,8 +47,8 @@ export interface Geometry {
   /** Targets by spacecraft id, in scenario order. */
   targets: Map<string, Target>;
   span: Span;
-  /** The Sun and the Moon over the span (noise in the beam, Sun outages, Sun-Earth-probe angle). */
-  sky: SkyBodies;
+  /** The Sun and the Moon over the span (noise in the beam, Sun outages, Sun-Earth-probe angle); built on first use. */
+  readonly sky: SkyBodies;
 }
 
 export function prepareGeometry(scenario: Scenario, span: Span): Geometry {
@@ -56,7 +56,31 @@ export function prepareGeometry(scenario: Scenario, span: Span): Geometry {
   const masks = scenario.stations.map((s) => prepareMask(s.mask));
   const targets = new Map<string, Target>();
   for (const sc of scenario.spacecraft) targets.set(sc.id, makeTarget(sc, span));
-  return { sites, masks, targets, span, sky: new SkyBodies(span) };
+  let sky: SkyBodies | undefined;
+  return {
+    sites,
+    masks,
+    targets,
+    span,
+    get sky(): SkyBodies {
+      return (sky ??= skyBodiesFor(span));
+    },
+  };
+}
+
+/** The last span's SkyBodies: a worker's batches share one span, and the tables depend on nothing else. */
+let lastSky: { startMs: number; endMs: number; sky: SkyBodies } | undefined;
+
+/**
+ * SkyBodies of a span, built once for consecutive runs over the same span: its answers are
+ * a function of the time alone (the memo of its last time only saves work), so sharing it
+ * changes no value.
+ */
+function skyBodiesFor(span: Span): SkyBodies {
+  if (lastSky === undefined || lastSky.startMs !== span.startMs || lastSky.endMs !== span.endMs) {
+    lastSky = { startMs: span.startMs, endMs: span.endMs, sky: new SkyBodies(span) };
+  }
+  return lastSky.sky;
 }
 
 export interface ContactSearch {
@@ -99,12 +123,14 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
     }
     if (searchSpan.endMs > searchSpan.startMs) {
       const siteOf = new Map(geometry.sites.map((s) => [s.stationId, s]));
-      for (const p of findPasses(target, geometry.sites, geometry.masks, searchSpan, search)) {
-        contacts.push({ ...p, durationS: (p.losMs - p.aosMs) / 1000, ...transmitTimes(target, siteOf.get(p.stationId)!, p) });
+      const found = findPassesWithRanges(target, geometry.sites, geometry.masks, searchSpan, search);
+      const ranges = isSgp4Target(target) ? found.rangesKm : undefined;
+      for (const p of found.passes) {
+        contacts.push({ ...p, durationS: (p.losMs - p.aosMs) / 1000, ...transmitTimes(target, siteOf.get(p.stationId)!, p, ranges?.get(p)) });
       }
     }
     propagations += target.evaluations - before;
-    const conjunction = solarConjunctionWarning(target, geometry.sky, span);
+    const conjunction = solarConjunctionWarning(target, () => geometry.sky, span);
     if (conjunction) warnings.push(`${sc.id}: ${conjunction}`);
     if (target.failedAtMs !== undefined) {
       warnings.push(`${sc.id}: track ends at ${isoUtc(target.failedAtMs, 0)}: ${target.failureReason ?? 'SGP4 error'}; no contacts after it`);
@@ -128,14 +154,23 @@ const ltLook = newLook();
  * (geometry/light-time.ts): each is the received time less the light time of the
  * station-to-craft range there (the range of a light-time corrected state).
  */
-function transmitTimes(target: Target, site: Site, p: { aosMs: number; tcaMs: number; losMs: number }): Pick<Contact, 'aosTransmitMs' | 'losTransmitMs' | 'lightTimeS'> {
-  const tau = (tMs: number): number => {
+function transmitTimes(
+  target: Target,
+  site: Site,
+  p: { aosMs: number; tcaMs: number; losMs: number },
+  /** The search's slant ranges at AOS, TCA and LOS (SGP4 targets: a state is a function of the time alone). */
+  searchRangesKm?: Float64Array,
+): Pick<Contact, 'aosTransmitMs' | 'losTransmitMs' | 'lightTimeS'> {
+  const tau = (tMs: number, j: number): number => {
+    // the search's range is the one evaluated here again, unless the track has ended before tMs since
+    const known = searchRangesKm?.[j];
+    if (known !== undefined && !Number.isNaN(known) && (target.failedAtMs === undefined || tMs < target.failedAtMs)) return lightTimeS(known);
     if (!target.stateEcefAt(tMs, ltState)) return Number.NaN;
     return lightTimeS(lookFrom(site, ltState, ltLook).rangeKm);
   };
-  const aos = tau(p.aosMs);
-  const los = tau(p.losMs);
-  return { aosTransmitMs: p.aosMs - aos * 1000, losTransmitMs: p.losMs - los * 1000, lightTimeS: tau(p.tcaMs) };
+  const aos = tau(p.aosMs, 0);
+  const los = tau(p.losMs, 2);
+  return { aosTransmitMs: p.aosMs - aos * 1000, losTransmitMs: p.losMs - los * 1000, lightTimeS: tau(p.tcaMs, 1) };
 }
 
 /** Lunar two-body elements further than this from any part of the window get a warning, days (lunar-orbit.ts: km per day of drift). */
@@ -152,7 +187,8 @@ export const SOLAR_CONJUNCTION_WARNING_DEG = 5;
 const SEP_SAMPLE_MS = 3_600_000;
 
 /** The warning for a deep-space target whose Sun-Earth-probe angle falls below the threshold in the span, or undefined. */
-export function solarConjunctionWarning(target: Target, sky: SkyBodies, span: Span): string | undefined {
+export function solarConjunctionWarning(target: Target, skyOrBuild: SkyBodies | (() => SkyBodies), span: Span): string | undefined {
+  let sky = typeof skyOrBuild === 'function' ? undefined : skyOrBuild;
   const s = new Float64Array(6);
   let first = Number.NaN;
   let last = Number.NaN;
@@ -162,6 +198,7 @@ export function solarConjunctionWarning(target: Target, sky: SkyBodies, span: Sp
   const to = target.coverage ? Math.min(span.endMs, target.coverage.endMs) : span.endMs;
   for (let t = from; t <= to; t += SEP_SAMPLE_MS) {
     if (!target.stateEcefAt(t, s) || Math.hypot(s[0]!, s[1]!, s[2]!) < DEEP_SPACE_KM) continue;
+    sky ??= (skyOrBuild as () => SkyBodies)(); // built only for a craft in deep space
     sky.at(t);
     const sep = sky.sunEarthProbeDeg(s);
     if (sep < least) {

@@ -27,8 +27,8 @@
  * lunar target's Moon noise are in the volumes.
  */
 import { lookFrom, newLook } from '../geometry/topocentric.js';
-import { newBodyAngles, type BodyAngles, type SkyBodies } from '../geometry/sky-bodies.js';
-import { beamBodiesTempK } from '../link/body-noise.js';
+import { FAR_MOON_MARGIN_DEG, FAR_SUN_MARGIN_DEG, farCosLimit, newBodyAngles, type BodyAngles, type SkyBodies } from '../geometry/sky-bodies.js';
+import { BODY_NOISE_CUTOFF_BEAMWIDTHS, beamBodiesTempK } from '../link/body-noise.js';
 import { StateInterpolator } from '../geometry/interpolate.js';
 import type { Look, Site } from '../geometry/types.js';
 import { buildAtmosphereTable, buildExceedanceLevelsTable, rainModelled, type AtmosphereStationInput } from '../link/atmosphere/index.js';
@@ -36,7 +36,7 @@ import { EXPECTED_VOLUME_LEVELS, expectationWeights, expectedValueBound } from '
 import type { AtmosphereTable, ExceedanceLevelsTable } from '../link/atmosphere/types.js';
 import { prepareLink, evaluateLink, esN0ShiftDb } from '../link/budget.js';
 import { polarizationTiltDeg } from '../link/polarization.js';
-import { stationClimate } from '../link/climate/station.js';
+import { stationClimateValues } from '../link/climate/station.js';
 import { wavelengthM } from '../link/units.js';
 import { newLinkSample, type LinkSample, type PreparedLink } from '../link/types.js';
 import { modcodStaircase, stepAt, type ModcodStaircase } from '../link/modcod/acm.js';
@@ -85,7 +85,7 @@ export function linkExceedancePercent(settings: LinkSettings): number {
 
 export function atmosphereInputFor(station: Station, radio: Radio, settings: LinkSettings): AtmosphereStationInput {
   const exceedancePercent = linkExceedancePercent(settings);
-  const c = stationClimate(station, exceedancePercent).values;
+  const c = stationClimateValues(station, exceedancePercent);
   const { diameterM, efficiency } = effectiveDiameterM(station, radio.frequencyHz);
   return {
     frequencyHz: radio.frequencyHz,
@@ -347,6 +347,9 @@ interface Accumulator {
   pieces: number[] | undefined;
   /** The expected volume's running sums, when the link carries exceedance levels. */
   expected: ExpectedAccumulator | undefined;
+  /** SkyBodies.farFromBoth limits beyond which the Sun and the Moon add nothing to this beam (bodyNoiseFar). */
+  cosSunFar: number;
+  cosMoonFar: number;
 }
 
 /** Per contact: the closing quantity at each exceedance level and each level's volume. */
@@ -662,6 +665,7 @@ export function integrateContacts(
       bins: [],
       pieces: overlapping.has(c) ? [] : undefined,
       expected: link.exceedanceLevels ? newExpectedAccumulator(link.exceedanceLevels, overlapping.has(c)) : undefined,
+      ...farLimits(link, site),
     };
     const list = bySpacecraft.get(c.spacecraftId) ?? [];
     list.push(acc);
@@ -678,7 +682,7 @@ export function integrateContacts(
       if (!interp.stateAt(tMs, state)) return;
       lookFrom(acc.site, state, look);
       sky.at(tMs);
-      evaluateLink(acc.link, look, sample, false, bodyTempK(acc.link, sky, acc.site, state, angles));
+      evaluateLink(acc.link, look, sample, false, sampleBodyTempK(acc, sky, state, look, angles));
       stats.linkSamples++;
       addSample(acc, tMs, look, sample);
     };
@@ -716,11 +720,11 @@ export function integrateContacts(
         continue;
       }
       if (!interp.stateAt(tMs, state)) continue;
-      sky.at(tMs);
+      sky.atGrid(t0, stepMs, k, tMs);
       for (const acc of active) {
         if (tMs <= acc.contact.aosMs || tMs >= acc.contact.losMs) continue;
         lookFrom(acc.site, state, look);
-        evaluateLink(acc.link, look, sample, false, bodyTempK(acc.link, sky, acc.site, state, angles));
+        evaluateLink(acc.link, look, sample, false, sampleBodyTempK(acc, sky, state, look, angles));
         stats.linkSamples++;
         addSample(acc, tMs, look, sample);
       }
@@ -852,6 +856,34 @@ function finish(acc: Accumulator): void {
     if (e.pieces !== undefined) link.expectedRatePieces = e.pieces;
   }
   acc.contact.link = link;
+}
+
+/**
+ * Largest angular radius of the Sun (perihelion, 0.272 deg) and of the Moon from a station
+ * (perigee, 1,737.4 km over 350,000 km: 0.285 deg), rounded up, deg.
+ */
+const BODY_RADIUS_BOUND_DEG = 0.3;
+
+/** An accumulator's limits for SkyBodies.farFromBoth: beyond them a body's disc noise is 0 (body-noise.ts cut-off). */
+function farLimits(link: PreparedLink, site: Site): { cosSunFar: number; cosMoonFar: number } {
+  const hpbw = link.rxBeamwidthDeg;
+  const onEarth = Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]) < 7000;
+  if (!(hpbw > 0) || !onEarth) return { cosSunFar: -2, cosMoonFar: -2 };
+  const reach = BODY_RADIUS_BOUND_DEG + BODY_NOISE_CUTOFF_BEAMWIDTHS * hpbw;
+  return { cosSunFar: farCosLimit(reach, FAR_SUN_MARGIN_DEG), cosMoonFar: farCosLimit(reach, FAR_MOON_MARGIN_DEG) };
+}
+
+/**
+ * bodyTempK of one link sample (sky at the sample's time, look from lookFrom of the same
+ * state): 0 at once when both bodies are surely beyond the noise cut-off of the beam
+ * (where bodyTempK gives 0 too), else bodyTempK.
+ */
+function sampleBodyTempK(acc: Accumulator, sky: SkyBodies, state: Float64Array, look: Look, angles: BodyAngles): number {
+  const hpbw = acc.link.rxBeamwidthDeg;
+  if (!(hpbw > 0)) return 0;
+  const s = acc.site.ecefKm;
+  if (sky.farFromBoth(state[0]! - s[0], state[1]! - s[1], state[2]! - s[2], look.rangeKm, acc.cosSunFar, acc.cosMoonFar)) return 0;
+  return bodyTempK(acc.link, sky, acc.site, state, angles);
 }
 
 /**

@@ -24,6 +24,7 @@ import { ScenarioError } from '../../errors.js';
 import type { ElementSet, OmmElements, Span } from '../../scenario/types.js';
 import { gmstRadAt, JULIAN_DATE_UNIX_EPOCH, temeToEcef } from '../frames.js';
 import type { Target } from '../types.js';
+import { sgp4NearEarthInto } from './sgp4-near.js';
 
 /** Status of one SGP4 call: 0 ok, otherwise satellite.js SatRecError code (or -1). */
 export const SGP4_OK = 0;
@@ -50,6 +51,13 @@ export function sgp4ErrorText(code: number): string {
  * (SGP4_OK = 0, or the SGP4 error code). Does not go through a Date.
  */
 export function propagateTemeMinutes(satrec: SatRec, tsinceMin: number, outTeme: Float64Array): number {
+  if (satrec.method === 'n') {
+    // satellite.js's own arithmetic, without its result objects (sgp4-near.ts)
+    const code = sgp4NearEarthInto(satrec, tsinceMin, outTeme);
+    if (code !== SGP4_OK) return code;
+    for (let i = 0; i < 6; i++) if (!Number.isFinite(outTeme[i]!)) return SGP4_NON_FINITE;
+    return SGP4_OK;
+  }
   const pv = sgp4(satrec, tsinceMin);
   if (pv === null) return satrec.error !== 0 ? satrec.error : SGP4_NON_FINITE;
   const p = pv.position;
@@ -214,6 +222,15 @@ class Sgp4Target implements Target {
     this.vTeme = this.teme.subarray(3, 6);
   }
 
+  /** True when one element set serves all of [aMs, bMs] (no switch to a nearer set inside). */
+  oneSetOver(aMs: number, bMs: number): boolean {
+    for (let i = 0; i < this.switchMs.length; i++) {
+      const s = this.switchMs[i]!;
+      if (s > aMs && s <= bMs) return false;
+    }
+    return true;
+  }
+
   stateEcefAt(tMs: number, out: Float64Array): boolean {
     if (this.failedAtMs !== undefined && tMs >= this.failedAtMs) return false;
     let i = this.current;
@@ -234,6 +251,20 @@ class Sgp4Target implements Target {
     temeToEcef(this.rTeme, this.vTeme, gmstRadAt(tMs), out);
     return true;
   }
+}
+
+/** True when `target` is an SGP4 target: its state is a function of the time alone, until its track ends. */
+export function isSgp4Target(target: Target): boolean {
+  return target instanceof Sgp4Target;
+}
+
+/**
+ * True when `target` is an SGP4 target whose states over [aMs, bMs] come from one element
+ * set: a smooth orbit there, whose acceleration is the Earth's gravity (plus small
+ * perturbations) in inertial axes. False for every other target.
+ */
+export function sgp4SmoothOver(target: Target, aMs: number, bMs: number): boolean {
+  return target instanceof Sgp4Target && target.oneSetOver(aMs, bMs);
 }
 
 /**

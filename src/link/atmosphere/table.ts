@@ -95,6 +95,8 @@ class HermiteGrid {
   private h10 = 0;
   private h01 = 0;
   private h11 = 0;
+  /** The interval of the last lookup, tried first (samples move little): the same interval the search finds. */
+  private hint = 0;
 
   private readonly floor: number;
 
@@ -120,11 +122,17 @@ class HermiteGrid {
     let hi = this.last;
     if (uq >= (u[hi] as number)) lo = hi - 1;
     else {
-      while (hi - lo > 1) {
-        const mid = (lo + hi) >> 1;
-        if ((u[mid] as number) <= uq) lo = mid;
-        else hi = mid;
+      // the only i with u[i] <= uq < u[i + 1] (what the bisection below ends on)
+      const h = this.hint;
+      if ((u[h] as number) <= uq && uq < (u[h + 1] as number)) lo = h;
+      else {
+        while (hi - lo > 1) {
+          const mid = (lo + hi) >> 1;
+          if ((u[mid] as number) <= uq) lo = mid;
+          else hi = mid;
+        }
       }
+      this.hint = lo;
     }
     const u0 = u[lo] as number;
     const h = (u[lo + 1] as number) - u0;

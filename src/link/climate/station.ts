@@ -75,6 +75,30 @@ export function gasCloudExceedancePercent(linkExceedancePercent: number): number
   return Math.max(linkExceedancePercent, GAS_CLOUD_HOLD_PERCENT);
 }
 
+/** stationClimate's values by site content and exceedance (the maps are pure functions of them). */
+const valuesMemo = new Map<string, Readonly<Required<Climate>>>();
+
+/**
+ * The climate values of stationClimate (site.climate's values, else the maps'), remembered
+ * per site content and exceedance: the link engine asks for them once per radio, station
+ * and exceedance level. Read-only: the same object is returned to every caller.
+ */
+export function stationClimateValues(site: ClimateSite, linkExceedancePercent: number): Readonly<Required<Climate>> {
+  let key = `${keyNum(site.latitudeDeg)}|${keyNum(site.longitudeDeg)}|${keyNum(site.heightKm)}|${keyNum(linkExceedancePercent)}`;
+  for (const f of FIELDS) key += `|${keyNum(site.climate[f.field])}`;
+  let v = valuesMemo.get(key);
+  if (v === undefined) {
+    v = stationClimate(site, linkExceedancePercent).values;
+    valuesMemo.set(key, v);
+  }
+  return v;
+}
+
+/** A number as a memo key part (-0 kept apart from 0; undefined as "u"). */
+function keyNum(v: number | undefined): string {
+  return v === undefined ? 'u' : Object.is(v, -0) ? '-0' : String(v);
+}
+
 /** Every climate input of a station for a link at linkExceedancePercent, with its source. */
 export function stationClimate(site: ClimateSite, linkExceedancePercent: number): StationClimate {
   const lat = site.latitudeDeg;

@@ -1,0 +1,182 @@
+/**
+ * SGP4 for near-Earth element sets (satrec.method 'n', periods under 225 min), writing the
+ * TEME state into a Float64Array instead of returning new objects: the contact search
+ * propagates a million times a run, and satellite.js 7.1.0's `sgp4` allocates four objects
+ * per call.
+ *
+ * Model: SGP4 as revised in D. A. Vallado, P. Crawford, R. Hujsak, T. S. Kelso,
+ * "Revisiting Spacetrack Report #3", AIAA 2006-6753 (2006), WGS-72 constants. This is
+ * satellite.js 7.1.0's `sgp4` (dist/propagation/sgp4.js, MIT licence) with its deep-space
+ * branches removed and its outputs written in place: the same operations in the same
+ * order on the same constants (satellite.js `constants`), so the same numbers bit for bit
+ * (test/geometry/sgp4-near.test.ts). It sets satrec.t, satrec.error and satrec.tempa as
+ * satellite.js does. Deep-space sets (method 'd') are not handled here.
+ * Units: minutes since epoch in; km, km/s out.
+ */
+import { constants, type SatRec } from 'satellite.js';
+
+const { earthRadius, j2, j3oj2, twoPi, vkmpersec, x2o3, xke } = constants;
+
+/** satellite.js SatRecError codes. */
+const ERR_NONE = 0;
+const ERR_MEAN_ECCENTRICITY = 1;
+const ERR_MEAN_MOTION = 2;
+const ERR_SEMI_LATUS_RECTUM = 4;
+const ERR_DECAYED = 6;
+
+/**
+ * Propagate a near-Earth satrec (method 'n') to tsince minutes from its epoch: TEME position
+ * (km) into out[0..2], velocity (km/s) into out[3..5]. Returns 0, or the SGP4 error code
+ * (satrec.error is set likewise; out is then left as it was).
+ */
+export function sgp4NearEarthInto(satrec: SatRec, tsince: number, out: Float64Array): number {
+  let coseo1 = 0;
+  let sineo1 = 0;
+  let delm: number;
+  let delomg: number;
+  let eo1: number;
+  let argpm: number;
+  let mm: number;
+  let nm: number;
+  let nodem: number;
+  let t3: number;
+  let t4: number;
+  let tem5: number;
+  let temp: number;
+  let tempa: number;
+  let tempe: number;
+  let templ: number;
+  satrec.t = tsince;
+  satrec.error = ERR_NONE;
+  const xmdf = satrec.mo + satrec.mdot * satrec.t;
+  const argpdf = satrec.argpo + satrec.argpdot * satrec.t;
+  const nodedf = satrec.nodeo + satrec.nodedot * satrec.t;
+  argpm = argpdf;
+  mm = xmdf;
+  const t2 = satrec.t * satrec.t;
+  nodem = nodedf + satrec.nodecf * t2;
+  tempa = 1.0 - satrec.cc1 * satrec.t;
+  tempe = satrec.bstar * satrec.cc4 * satrec.t;
+  templ = satrec.t2cof * t2;
+  if (satrec.isimp !== 1) {
+    delomg = satrec.omgcof * satrec.t;
+    const delmtemp = 1.0 + satrec.eta * Math.cos(xmdf);
+    delm = satrec.xmcof * (delmtemp * delmtemp * delmtemp - satrec.delmo);
+    temp = delomg + delm;
+    mm = xmdf + temp;
+    argpm = argpdf - temp;
+    t3 = t2 * satrec.t;
+    t4 = t3 * satrec.t;
+    tempa = tempa - satrec.d2 * t2 - satrec.d3 * t3 - satrec.d4 * t4;
+    tempe += satrec.bstar * satrec.cc5 * (Math.sin(mm) - satrec.sinmao);
+    templ = templ + satrec.t3cof * t3 + t4 * (satrec.t4cof + satrec.t * satrec.t5cof);
+  }
+  satrec.tempa = tempa;
+  nm = satrec.no;
+  let em = satrec.ecco;
+  const inclm = satrec.inclo;
+  if (nm <= 0.0) {
+    satrec.error = ERR_MEAN_MOTION;
+    return ERR_MEAN_MOTION;
+  }
+  const am = (xke / nm) ** x2o3 * tempa * tempa;
+  nm = xke / am ** 1.5;
+  em -= tempe;
+  if (em >= 1.0 || em < -0.001) {
+    satrec.error = ERR_MEAN_ECCENTRICITY;
+    return ERR_MEAN_ECCENTRICITY;
+  }
+  if (em < 1.0e-6) {
+    em = 1.0e-6;
+  }
+  mm += satrec.no * templ;
+  let xlm = mm + argpm + nodem;
+  nodem %= twoPi;
+  argpm %= twoPi;
+  xlm %= twoPi;
+  mm = (xlm - argpm - nodem) % twoPi;
+  const sinim = Math.sin(inclm);
+  const cosim = Math.cos(inclm);
+  const ep = em;
+  const xincp = inclm;
+  const argpp = argpm;
+  const nodep = nodem;
+  const mp = mm;
+  const sinip = sinim;
+  const cosip = cosim;
+  const axnl = ep * Math.cos(argpp);
+  temp = 1.0 / (am * (1.0 - ep * ep));
+  const aynl = ep * Math.sin(argpp) + temp * satrec.aycof;
+  const xl = mp + argpp + nodep + temp * satrec.xlcof * axnl;
+  const u = (xl - nodep) % twoPi;
+  eo1 = u;
+  tem5 = 9999.9;
+  let ktr = 1;
+  while (Math.abs(tem5) >= 1.0e-12 && ktr <= 10) {
+    sineo1 = Math.sin(eo1);
+    coseo1 = Math.cos(eo1);
+    tem5 = 1.0 - coseo1 * axnl - sineo1 * aynl;
+    tem5 = (u - aynl * coseo1 + axnl * sineo1 - eo1) / tem5;
+    if (Math.abs(tem5) >= 0.95) {
+      if (tem5 > 0.0) {
+        tem5 = 0.95;
+      } else {
+        tem5 = -0.95;
+      }
+    }
+    eo1 += tem5;
+    ktr += 1;
+  }
+  const ecose = axnl * coseo1 + aynl * sineo1;
+  const esine = axnl * sineo1 - aynl * coseo1;
+  const el2 = axnl * axnl + aynl * aynl;
+  const pl = am * (1.0 - el2);
+  if (pl < 0.0) {
+    satrec.error = ERR_SEMI_LATUS_RECTUM;
+    return ERR_SEMI_LATUS_RECTUM;
+  }
+  const rl = am * (1.0 - ecose);
+  const rdotl = (Math.sqrt(am) * esine) / rl;
+  const rvdotl = Math.sqrt(pl) / rl;
+  const betal = Math.sqrt(1.0 - el2);
+  temp = esine / (1.0 + betal);
+  const sinu = (am / rl) * (sineo1 - aynl - axnl * temp);
+  const cosu = (am / rl) * (coseo1 - axnl + aynl * temp);
+  let su = Math.atan2(sinu, cosu);
+  const sin2u = (cosu + cosu) * sinu;
+  const cos2u = 1.0 - 2.0 * sinu * sinu;
+  temp = 1.0 / pl;
+  const temp1 = 0.5 * j2 * temp;
+  const temp2 = temp1 * temp;
+  const mrt = rl * (1.0 - 1.5 * temp2 * betal * satrec.con41) + 0.5 * temp1 * satrec.x1mth2 * cos2u;
+  if (mrt < 1.0) {
+    satrec.error = ERR_DECAYED;
+    return ERR_DECAYED;
+  }
+  su -= 0.25 * temp2 * satrec.x7thm1 * sin2u;
+  const xnode = nodep + 1.5 * temp2 * cosip * sin2u;
+  const xinc = xincp + 1.5 * temp2 * cosip * sinip * cos2u;
+  const mvt = rdotl - (nm * temp1 * satrec.x1mth2 * sin2u) / xke;
+  const rvdot = rvdotl + (nm * temp1 * (satrec.x1mth2 * cos2u + 1.5 * satrec.con41)) / xke;
+  const sinsu = Math.sin(su);
+  const cossu = Math.cos(su);
+  const snod = Math.sin(xnode);
+  const cnod = Math.cos(xnode);
+  const sini = Math.sin(xinc);
+  const cosi = Math.cos(xinc);
+  const xmx = -snod * cosi;
+  const xmy = cnod * cosi;
+  const ux = xmx * sinsu + cnod * cossu;
+  const uy = xmy * sinsu + snod * cossu;
+  const uz = sini * sinsu;
+  const vx = xmx * cossu - cnod * sinsu;
+  const vy = xmy * cossu - snod * sinsu;
+  const vz = sini * cossu;
+  out[0] = mrt * ux * earthRadius;
+  out[1] = mrt * uy * earthRadius;
+  out[2] = mrt * uz * earthRadius;
+  out[3] = (mvt * ux + rvdot * vx) * vkmpersec;
+  out[4] = (mvt * uy + rvdot * vy) * vkmpersec;
+  out[5] = (mvt * uz + rvdot * vz) * vkmpersec;
+  return ERR_NONE;
+}
