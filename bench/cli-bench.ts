@@ -104,7 +104,7 @@ export function cliBenchmark(sizes: number[] = [200, 1000], stations = 20, days 
   const work = mkdtempSync(join(tmpdir(), 'passbudget-workload-'));
   try {
     console.log('\nwhole program (`passbudget plan`, every output written to a temp folder; invented seeded workloads):');
-    printFigures(runCliPlan('demo (6 x 6 x 7 d)', undefined));
+    printFigures(runCliPlan('demo (8 x 6 x 7 d)', undefined));
     const mixed = writeMixed(join(work, 'mixed'));
     printFigures(runCliPlan('mixed 5 x 5 x 7 d (LEO, HEO, MEO; geometry)', mixed));
     const bySize = new Map<number, CliFigures>();
