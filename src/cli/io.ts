@@ -1,4 +1,5 @@
 import { once } from 'node:events';
+import { byteChunks } from '../report/write.js';
 
 /** What a command may touch of the outside: two text sinks and the clock. */
 export interface CliIo {
@@ -31,34 +32,10 @@ const OUT_CHUNK_BYTES = 1 << 20;
  * reader of a pipe holds the run back instead of the run holding the output in memory).
  */
 export async function outPieces(io: CliIo, pieces: Iterable<string | Uint8Array>): Promise<void> {
-  let buf = Buffer.allocUnsafe(OUT_CHUNK_BYTES);
-  let pos = 0;
-  const flush = async (): Promise<void> => {
-    if (pos === 0) return;
-    if (io.outBytes) {
-      io.outBytes(buf.subarray(0, pos));
-      buf = Buffer.allocUnsafe(OUT_CHUNK_BYTES); // the stream may still hold the last one
-    } else io.out(buf.toString('utf8', 0, pos));
-    pos = 0;
+  // new buffers each time: the stream may still hold the last one
+  for (const chunk of byteChunks(pieces, OUT_CHUNK_BYTES, false)) {
+    if (io.outBytes) io.outBytes(chunk);
+    else io.out(Buffer.from(chunk.buffer, chunk.byteOffset, chunk.length).toString('utf8'));
     await io.drained?.();
-  };
-  for (const p of pieces) {
-    const most = typeof p === 'string' ? p.length * 3 : p.length;
-    if (pos + most > buf.length) {
-      await flush();
-      if (most > buf.length) {
-        if (typeof p === 'string') io.out(p);
-        else if (io.outBytes) io.outBytes(Buffer.from(p)); // a copy: a piece may be a view into a reused window
-        else io.out(Buffer.from(p.buffer, p.byteOffset, p.length).toString('utf8'));
-        await io.drained?.();
-        continue;
-      }
-    }
-    if (typeof p === 'string') pos += buf.write(p, pos, 'utf8');
-    else {
-      buf.set(p, pos);
-      pos += p.length;
-    }
   }
-  await flush();
 }

@@ -73,17 +73,17 @@ export function lineDeviationKm(state: Float64Array, tauS: number): number {
   return a >= 0 ? dv * tauS + 0.5 * a * tauS * tauS + 1 : Number.NaN;
 }
 
+/** Scratch of pieceFromSite for elevationBoundsDeg (single-threaded, never held across calls). */
+const piece = new Float64Array(8);
+
 /**
- * Bounds on the elevation from `site` of the orbiter of `state` (ECEF km, km/s, at t0) over
- * |t - t0| <= tauS, deg, into out[0] (lowest) and out[1] (highest); false when no bound holds.
- * The orbiter stays within lineDeviationKm of the tangent piece A..B = r0 -/+ v0 tau, whose
- * directions from the site sweep the great-circle arc between those of A and B: the arc's
- * elevations lie between its ends' and, when its highest (lowest) point lies inside it,
- * that point's, +/- asin(deviation / least distance to the piece) (1e-7 deg for rounding).
- * devKm: lineDeviationKm(state, tauS), when the caller has it.
+ * The tangent-line piece r0 + v0 t, |t| <= tauS, of `state` (ECEF km, km/s) seen from
+ * `site`: its ends A (t = -tauS) and B (t = +tauS) relative to the site into out[0..5]
+ * (ax, ay, az, bx, by, bz) and their lengths into out[6], out[7]; returns the least
+ * distance from the site to the piece, km. Shared by elevationBoundsDeg and the Sun-outage
+ * screen (sun-outage.ts).
  */
-export function elevationBoundsDeg(site: Site, state: Float64Array, tauS: number, out: Float64Array, devKm = lineDeviationKm(state, tauS)): boolean {
-  if (!(devKm >= 0)) return false;
+export function pieceFromSite(site: Site, state: Float64Array, tauS: number, out: Float64Array): number {
   const s = site.ecefKm;
   const ax = state[0]! - state[3]! * tauS - s[0];
   const ay = state[1]! - state[4]! * tauS - s[1];
@@ -96,10 +96,38 @@ export function elevationBoundsDeg(site: Site, state: Float64Array, tauS: number
   const bz = az + dz;
   const dd = dx * dx + dy * dy + dz * dz;
   const w = dd > 0 ? Math.min(1, Math.max(0, -(ax * dx + ay * dy + az * dz) / dd)) : 0;
-  const nearKm = Math.sqrt((ax + w * dx) ** 2 + (ay + w * dy) ** 2 + (az + w * dz) ** 2);
+  out[0] = ax;
+  out[1] = ay;
+  out[2] = az;
+  out[3] = bx;
+  out[4] = by;
+  out[5] = bz;
+  out[6] = Math.sqrt(ax * ax + ay * ay + az * az);
+  out[7] = Math.sqrt(bx * bx + by * by + bz * bz);
+  return Math.sqrt((ax + w * dx) ** 2 + (ay + w * dy) ** 2 + (az + w * dz) ** 2);
+}
+
+/**
+ * Bounds on the elevation from `site` of the orbiter of `state` (ECEF km, km/s, at t0) over
+ * |t - t0| <= tauS, deg, into out[0] (lowest) and out[1] (highest); false when no bound holds.
+ * The orbiter stays within lineDeviationKm of the tangent piece A..B = r0 -/+ v0 tau, whose
+ * directions from the site sweep the great-circle arc between those of A and B: the arc's
+ * elevations lie between its ends' and, when its highest (lowest) point lies inside it,
+ * that point's, +/- asin(deviation / least distance to the piece) (1e-7 deg for rounding).
+ * devKm: lineDeviationKm(state, tauS), when the caller has it.
+ */
+export function elevationBoundsDeg(site: Site, state: Float64Array, tauS: number, out: Float64Array, devKm = lineDeviationKm(state, tauS)): boolean {
+  if (!(devKm >= 0)) return false;
+  const nearKm = pieceFromSite(site, state, tauS, piece);
   if (!(nearKm > devKm)) return false;
-  const na = Math.sqrt(ax * ax + ay * ay + az * az);
-  const nb = Math.sqrt(bx * bx + by * by + bz * bz);
+  const ax = piece[0]!;
+  const ay = piece[1]!;
+  const az = piece[2]!;
+  const bx = piece[3]!;
+  const by = piece[4]!;
+  const bz = piece[5]!;
+  const na = piece[6]!;
+  const nb = piece[7]!;
   const u = site.up;
   const sinA = (u[0] * ax + u[1] * ay + u[2] * az) / na;
   const sinB = (u[0] * bx + u[1] * by + u[2] * bz) / nb;

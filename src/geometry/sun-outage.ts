@@ -21,7 +21,7 @@
  */
 import type { SkyBodies, BodyAngles } from './sky-bodies.js';
 import { newBodyAngles } from './sky-bodies.js';
-import { lineDeviationKm } from './reach.js';
+import { lineDeviationKm, pieceFromSite } from './reach.js';
 import { sgp4SmoothOver } from './targets/sgp4.js';
 import type { Site, Target } from './types.js';
 
@@ -54,6 +54,8 @@ export class SunOutageSearch {
   private readonly angles: BodyAngles = newBodyAngles();
   private readonly dir = new Float64Array(3);
   private readonly ends: number[] = [0, 0, 0, 0, 0, 0];
+  /** The screen's tangent-line piece from a site (reach.ts pieceFromSite). */
+  private readonly piece = new Float64Array(8);
   private readonly sunDir: number[] = [0, 0, 0];
 
   constructor(
@@ -208,29 +210,16 @@ export class SunOutageSearch {
       if (!this.target.stateEcefAt(tm, st)) return false;
       const devKm = lineDeviationKm(st, tauS);
       if (!(devKm >= 0)) return false;
-      // the piece's line ends, from the site
-      const ax = st[0]! - st[3]! * tauS - s[0];
-      const ay = st[1]! - st[4]! * tauS - s[1];
-      const az = st[2]! - st[5]! * tauS - s[2];
-      const dx = 2 * st[3]! * tauS;
-      const dy = 2 * st[4]! * tauS;
-      const dz = 2 * st[5]! * tauS;
-      const bx = ax + dx;
-      const by = ay + dy;
-      const bz = az + dz;
-      // least distance from the site to the piece
-      const dd = dx * dx + dy * dy + dz * dz;
-      const w = dd > 0 ? Math.min(1, Math.max(0, -(ax * dx + ay * dy + az * dz) / dd)) : 0;
-      const nearKm = Math.sqrt((ax + w * dx) ** 2 + (ay + w * dy) ** 2 + (az + w * dz) ** 2);
+      // the piece's line ends from the site, and its least distance from the site
+      const pc = this.piece;
+      const nearKm = pieceFromSite(site, st, tauS, pc);
       if (!(nearKm > devKm)) return false;
-      const na = Math.sqrt(ax * ax + ay * ay + az * az);
-      const nb = Math.sqrt(bx * bx + by * by + bz * bz);
-      e[0] = ax / na;
-      e[1] = ay / na;
-      e[2] = az / na;
-      e[3] = bx / nb;
-      e[4] = by / nb;
-      e[5] = bz / nb;
+      e[0] = pc[0]! / pc[6]!;
+      e[1] = pc[1]! / pc[6]!;
+      e[2] = pc[2]! / pc[6]!;
+      e[3] = pc[3]! / pc[7]!;
+      e[4] = pc[4]! / pc[7]!;
+      e[5] = pc[5]! / pc[7]!;
       this.sky.at(tm);
       const p = this.sky.sunEcefKm;
       const px = p[0]! - s[0];

@@ -40,8 +40,45 @@ async function writeAll(fh: FileHandle, bytes: Uint8Array): Promise<void> {
 }
 
 /**
+ * Pieces (text or UTF-8 bytes) gathered into chunks of `chunkBytes`; a piece larger than a
+ * chunk comes on its own (text encoded). With `reuse`, two buffers take turns: a chunk is
+ * valid until the next but one is asked for (a writer awaits one write before starting
+ * the next); without it every chunk is a new buffer (a stream may hold on to it).
+ */
+export function* byteChunks(pieces: Iterable<string | Uint8Array>, chunkBytes: number, reuse: boolean): Generator<Uint8Array> {
+  const buffers = reuse ? [Buffer.allocUnsafe(chunkBytes), Buffer.allocUnsafe(chunkBytes)] : [];
+  let turn = 0;
+  let chunk = reuse ? buffers[0]! : Buffer.allocUnsafe(chunkBytes);
+  let pos = 0;
+  const take = (): Uint8Array => {
+    const out = chunk.subarray(0, pos);
+    turn = 1 - turn;
+    chunk = reuse ? buffers[turn]! : Buffer.allocUnsafe(chunkBytes);
+    pos = 0;
+    return out;
+  };
+  for (const piece of pieces) {
+    const most = typeof piece === 'string' ? piece.length * 3 : piece.length;
+    if (pos + most > chunk.length) {
+      if (pos > 0) yield take();
+      if (most > chunk.length) {
+        // (without reuse, a copy: a piece may be a view into a buffer its maker reuses)
+        yield typeof piece === 'string' ? Buffer.from(piece, 'utf8') : reuse ? piece : Buffer.from(piece);
+        continue;
+      }
+    }
+    if (typeof piece === 'string') pos += chunk.write(piece, pos, 'utf8');
+    else {
+      chunk.set(piece, pos);
+      pos += piece.length;
+    }
+  }
+  if (pos > 0) yield take();
+}
+
+/**
  * Writes `content` to `path` (a new file): text as UTF-8, piece by piece for an iterable
- * (two chunks in turn: one is filled while the other is being written); bytes as they are.
+ * (in 1 MiB chunks, one gathered while the one before is being written); bytes as they are.
  */
 async function writeContent(path: string, content: OutputFile['content']): Promise<void> {
   if (typeof content === 'string' || content instanceof Uint8Array) {
@@ -49,38 +86,13 @@ async function writeContent(path: string, content: OutputFile['content']): Promi
     return;
   }
   const fh = await open(path, 'w');
+  let pending: Promise<void> = Promise.resolve();
   try {
-    const chunks = [Buffer.allocUnsafe(WRITE_CHUNK_BYTES), Buffer.allocUnsafe(WRITE_CHUNK_BYTES)];
-    let turn = 0;
-    let chunk = chunks[0]!;
-    let pos = 0;
-    let pending: Promise<void> = Promise.resolve();
-    const flush = async (): Promise<void> => {
-      if (pos === 0) return;
-      await pending; // the other chunk is free again
-      pending = writeAll(fh, chunk.subarray(0, pos));
+    for (const chunk of byteChunks(content, WRITE_CHUNK_BYTES, true)) {
+      await pending; // the buffer the next chunk is gathered in is free again
+      pending = writeAll(fh, chunk);
       pending.catch(() => undefined); // awaited below; never an unhandled rejection meanwhile
-      turn = 1 - turn;
-      chunk = chunks[turn]!;
-      pos = 0;
-    };
-    for (const piece of content) {
-      const most = typeof piece === 'string' ? piece.length * 3 : piece.length;
-      if (pos + most > chunk.length) {
-        await flush();
-        if (most > chunk.length) {
-          await pending;
-          await writeAll(fh, typeof piece === 'string' ? Buffer.from(piece, 'utf8') : piece);
-          continue;
-        }
-      }
-      if (typeof piece === 'string') pos += chunk.write(piece, pos, 'utf8');
-      else {
-        chunk.set(piece, pos);
-        pos += piece.length;
-      }
     }
-    await flush();
     await pending;
   } finally {
     await fh.close();
