@@ -68,10 +68,7 @@ export function findPasses(
   span: Span,
   opts: SearchOptions = DEFAULT_SEARCH,
 ): Pass[] {
-  const stepS = opts.scanStepS ?? target.scanStepS;
-  checkSearchInputs(sites, masks, span, stepS);
-  if (!(opts.edgeToleranceS > 0)) throw new ModelRangeError(MODEL, 'edgeToleranceS', opts.edgeToleranceS, '> 0 s');
-  return new PassSearch(target, sites, masks.map(asPreparedMask), span, stepS, opts).run();
+  return findPassesWithRanges(target, sites, masks, span, opts).passes;
 }
 
 /** findPasses with the slant ranges the search evaluated at each window's AOS, TCA and LOS. */

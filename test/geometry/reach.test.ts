@@ -23,6 +23,7 @@ import { DEFAULT_SEARCH } from '../../src/geometry/types.js';
 import type { Mask } from '../../src/scenario/types.js';
 import { elementSetFromTle, FIXTURE_EPOCH_MS, inventedDecayingOrbit, inventedFleet, inventedSites, makeTle, type InventedElements } from '../fixtures/orbits.js';
 import { mulberry32 } from '../fixtures/prng.js';
+import { plainTarget } from '../fixtures/plain-target.js';
 
 const W = 7.292115e-5;
 
@@ -97,23 +98,7 @@ describe('lineDeviationKm and elevationBoundsDeg', () => {
   });
 });
 
-/** A Target that only forwards to another (not an SGP4 target itself: the search applies no bound to it). */
-function plain(t: Target): Target {
-  return {
-    spacecraftId: t.spacecraftId,
-    scanStepS: t.scanStepS,
-    stateEcefAt: (tMs, out) => t.stateEcefAt(tMs, out),
-    get evaluations() {
-      return t.evaluations;
-    },
-    get failedAtMs() {
-      return t.failedAtMs;
-    },
-    get failureReason() {
-      return t.failureReason;
-    },
-  };
-}
+const plain = plainTarget;
 
 describe('the contact search with the reach bound', () => {
   const sites: Site[] = inventedSites.map((s) => makeSite(s.id, s.latitudeDeg, s.longitudeDeg, s.heightKm));

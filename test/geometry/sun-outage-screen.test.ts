@@ -18,24 +18,9 @@ import type { Site, Target } from '../../src/geometry/types.js';
 import { DEFAULT_SEARCH } from '../../src/geometry/types.js';
 import type { Mask } from '../../src/scenario/types.js';
 import { elementSetFromTle, FIXTURE_EPOCH_MS, inventedFleet, inventedSites, makeTle } from '../fixtures/orbits.js';
+import { plainTarget } from '../fixtures/plain-target.js';
 
-/** A Target that only forwards to another (not an SGP4 target itself). */
-function plain(t: Target): Target {
-  return {
-    spacecraftId: t.spacecraftId,
-    scanStepS: t.scanStepS,
-    stateEcefAt: (tMs, out) => t.stateEcefAt(tMs, out),
-    get evaluations() {
-      return t.evaluations;
-    },
-    get failedAtMs() {
-      return t.failedAtMs;
-    },
-    get failureReason() {
-      return t.failureReason;
-    },
-  };
-}
+const plain = plainTarget;
 
 describe('the Sun-outage screen', () => {
   const sites: Site[] = inventedSites.map((s) => makeSite(s.id, s.latitudeDeg, s.longitudeDeg, s.heightKm));
