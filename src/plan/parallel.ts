@@ -78,15 +78,25 @@ export function inlineWorthy(scenario: Scenario): boolean {
  * batches shrink towards the end and the threads finish together instead of one waiting
  * on the other's last large batch.
  */
-export function batchesOf<T>(fleet: readonly T[], threads: number): T[][] {
+export function batchesOf<T>(fleet: readonly T[], threads: number, most = MAX_BATCH_SPACECRAFT): T[][] {
   const batches: T[][] = [];
   for (let i = 0; i < fleet.length; ) {
-    const size = Math.max(MIN_BATCH_SPACECRAFT, Math.min(MAX_BATCH_SPACECRAFT, Math.ceil((fleet.length - i) / (4 * threads))));
+    const size = Math.max(MIN_BATCH_SPACECRAFT, Math.min(most, Math.ceil((fleet.length - i) / (4 * threads))));
     batches.push(fleet.slice(i, i + size));
     i += size;
   }
   if (batches.length === 0) batches.push([]);
   return batches;
+}
+
+/**
+ * Most spacecraft in a batch over `span`: MAX_BATCH_SPACECRAFT for a week, fewer for a
+ * longer span (a batch's contacts grow with it; what a worker holds and sends at once
+ * should not), at least MIN_BATCH_SPACECRAFT.
+ */
+export function batchLimitFor(span: Span): number {
+  const days = (span.endMs - span.startMs) / 86_400_000;
+  return Math.max(MIN_BATCH_SPACECRAFT, Math.min(MAX_BATCH_SPACECRAFT, Math.round((MAX_BATCH_SPACECRAFT * 7) / Math.max(days, 1e-9))));
 }
 
 function workerUrl(): URL | undefined {
@@ -99,7 +109,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Para
   const url = workerUrl();
   if (url === undefined || inlineWorthy(scenario)) return runPlan(scenario, span, opts);
   const { onProgress, renderTexts, spillDir, weekParts, slimContacts, ...plain } = opts;
-  const batches = batchesOf(scenario.spacecraft, threads);
+  const batches = batchesOf(scenario.spacecraft, threads, batchLimitFor(span));
   const parts: PlanResult[] = new Array<PlanResult>(batches.length);
   const texts: (BatchTexts | undefined)[] = new Array<BatchTexts | undefined>(batches.length);
   const figures: (BatchParts | undefined)[] = new Array<BatchParts | undefined>(batches.length);
