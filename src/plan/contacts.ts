@@ -76,7 +76,7 @@ let lastSky: { startMs: number; endMs: number; sky: SkyBodies } | undefined;
  * a function of the time alone (the memo of its last time only saves work), so sharing it
  * changes no value.
  */
-function skyBodiesFor(span: Span): SkyBodies {
+export function skyBodiesFor(span: Span): SkyBodies {
   if (lastSky === undefined || lastSky.startMs !== span.startMs || lastSky.endMs !== span.endMs) {
     lastSky = { startMs: span.startMs, endMs: span.endMs, sky: new SkyBodies(span) };
   }

@@ -14,9 +14,9 @@ import type { Site, Target } from '../geometry/types.js';
 import { evaluateLink } from '../link/budget.js';
 import { newLinkSample, type PreparedLink } from '../link/types.js';
 import type { Scenario, Span } from '../scenario/types.js';
-import { makeTarget } from './contacts.js';
+import { makeTarget, skyBodiesFor } from './contacts.js';
 import { bodyTempK, lowestMaskDeg, prepareRadioAtStation, radioHeardAt } from './link.js';
-import { newBodyAngles, SkyBodies } from '../geometry/sky-bodies.js';
+import { newBodyAngles, type SkyBodies } from '../geometry/sky-bodies.js';
 import type { Contact, PlanResult } from './types.js';
 
 export interface ContactSeries {
@@ -151,12 +151,6 @@ export function highestVolumeContacts(plan: PlanResult): Contact[] {
   });
 }
 
-/** The Sun and the Moon over `span`, made on the first call and kept. */
-export function lazySky(span: Span): () => SkyBodies {
-  let sky: SkyBodies | undefined;
-  return () => (sky ??= new SkyBodies(span));
-}
-
 /**
  * Series for the given contacts of a plan made from `scenario` over `span`:
  * builds each pair's target, site and prepared link as the plan did
@@ -167,8 +161,6 @@ export function seriesForContacts(
   span: Span,
   contacts: readonly Contact[],
   maxPoints: number = DEFAULT_SERIES_POINTS,
-  /** The Sun and the Moon over the span, made when first needed (callers with several calls share one). */
-  skyOfSpan: () => SkyBodies = lazySky(span),
 ): ContactSeries[] {
   const out: ContactSeries[] = [];
   const targets = new Map<string, Target>();
@@ -185,7 +177,8 @@ export function seriesForContacts(
     const site = makeSite(station.id, station.latitudeDeg, station.longitudeDeg, station.heightKm);
     const link = prepareRadioAtStation(radio, station, site, scenario.link, lowestMaskDeg(station));
     const stepS = seriesStepS(c.durationS, maxPoints);
-    out.push(sampleContact(c, target, site, link, scenario.link.acquisitionTimeS, stepS, skyOfSpan()));
+    // the span's Sun and Moon, made when a series first needs them and shared with the plan's (plan/contacts.ts)
+    out.push(sampleContact(c, target, site, link, scenario.link.acquisitionTimeS, stepS, skyBodiesFor(span)));
   }
   return out;
 }

@@ -9,13 +9,12 @@ import type { PassView } from '../report/html/pass-views.js';
 import type { Provenance } from '../report/html/provenance.js';
 import { SERIES_SPACECRAFT_LIMIT } from '../report/html/bounds.js';
 import { packageVersion } from '../scenario/paths.js';
-import type { SkyBodies } from '../geometry/sky-bodies.js';
 import { passWarnings } from './pass-warnings.js';
 import { allStationsDaily, dailyTotals, spacecraftTotals, type AllStationsDay, type DailyRow, type DayMode, type SpacecraftTotal } from './daily.js';
 import { marginRows, type MarginRow } from './margin.js';
 import { simulateRecorders, type RecorderResult } from './recorder.js';
 import { scheduleContacts, scheduledPlan, type ScheduleResult } from './schedule.js';
-import { highestVolumeContacts, lazySky, passesThatMatter, seriesForContacts, type ContactSeries } from './series.js';
+import { highestVolumeContacts, passesThatMatter, seriesForContacts, type ContactSeries } from './series.js';
 import type { PlanResult } from './types.js';
 import { uniqueVolumes } from './unique-volume.js';
 import { workerMarginRows, workerUniqueVolumes } from './worker-parts.js';
@@ -76,11 +75,10 @@ export interface WeekReportParts {
 
 export function weekReportParts(scenario: Scenario, span: Span, week: Week): WeekReportParts {
   const { plan, dayMode, schedule } = week;
-  const sky = lazySky(span); // one for both series, made only when a series needs it
   return {
     margins: workerMarginRows(week.unscheduled) ?? marginRows(scenario, week.unscheduled),
-    series: seriesForContacts(scenario, span, highestVolumeContacts(plan).slice(0, SERIES_SPACECRAFT_LIMIT), undefined, sky),
-    passViews: passViewsFor(scenario, span, plan, sky),
+    series: seriesForContacts(scenario, span, highestVolumeContacts(plan).slice(0, SERIES_SPACECRAFT_LIMIT)),
+    passViews: passViewsFor(scenario, span, plan),
     provenance: provenanceFor(scenario, span, plan, [
       ['link step', `${plan.linkStepS} s`],
       ['availability', `${plan.availabilityPercent} %`],
@@ -91,9 +89,9 @@ export function weekReportParts(scenario: Scenario, span: Span, week: Week): Wee
 }
 
 /** The passes that matter, sampled with their warnings, for the report. */
-function passViewsFor(scenario: Scenario, span: Span, plan: PlanResult, sky: () => SkyBodies): PassView[] {
+function passViewsFor(scenario: Scenario, span: Span, plan: PlanResult): PassView[] {
   const chosen = passesThatMatter(plan);
-  const series = seriesForContacts(scenario, span, chosen.map((c) => c.contact), undefined, sky);
+  const series = seriesForContacts(scenario, span, chosen.map((c) => c.contact));
   return chosen.flatMap(({ contact, why }) => {
     const s = series.find((x) => x.stationId === contact.stationId && x.spacecraftId === contact.spacecraftId && x.aosMs === contact.aosMs);
     const st = scenario.stations.find((x) => x.id === contact.stationId);
