@@ -232,22 +232,25 @@ class PassSearch {
     return this.sight ? Math.min(g, this.target.sightMarginDeg!(site.ecefKm)) : g;
   }
 
-  /** Azimuth/elevation at tMs for the current site: from the memo, else one evaluation. */
-  private lookAt(tMs: number): void {
+  /** The memo slot of the current site's evaluation at tMs (the latest), or -1. */
+  private memoIndex(tMs: number): number {
     const size = this.memoT.length;
     const first = Math.max(0, this.memoN - size);
     const site = this.curSite;
     for (let j = this.memoN - 1; j >= first; j--) {
       const m = j % size;
-      if (this.memoT[m] === tMs && this.memoSite[m] === site) {
-        this.refLook.azimuthDeg = this.memoAz[m]!;
-        this.refLook.elevationDeg = this.memoEl[m]!;
-        this.refLook.rangeKm = this.memoRange[m]!;
-        return;
-      }
+      if (this.memoT[m] === tMs && this.memoSite[m] === site) return m;
     }
-    this.gAt(tMs);
-    const m = (this.memoN - 1) % size;
+    return -1;
+  }
+
+  /** Azimuth/elevation at tMs for the current site: from the memo, else one evaluation. */
+  private lookAt(tMs: number): void {
+    let m = this.memoIndex(tMs);
+    if (m < 0) {
+      this.gAt(tMs);
+      m = (this.memoN - 1) % this.memoT.length;
+    }
     this.refLook.azimuthDeg = this.memoAz[m]!;
     this.refLook.elevationDeg = this.memoEl[m]!;
     this.refLook.rangeKm = this.memoRange[m]!;
@@ -255,14 +258,8 @@ class PassSearch {
 
   /** Slant range at tMs for the current site if the memo holds that evaluation, else NaN. */
   private memoRangeAt(tMs: number): number {
-    const size = this.memoT.length;
-    const first = Math.max(0, this.memoN - size);
-    const site = this.curSite;
-    for (let j = this.memoN - 1; j >= first; j--) {
-      const m = j % size;
-      if (this.memoT[m] === tMs && this.memoSite[m] === site) return this.memoRange[m]!;
-    }
-    return Number.NaN;
+    const m = this.memoIndex(tMs);
+    return m < 0 ? Number.NaN : this.memoRange[m]!;
   }
 
   /** Visible-side time of the g crossing between (aMs, ga) and (bMs, gb). */
