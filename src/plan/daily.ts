@@ -21,7 +21,7 @@
 import { DateTime } from 'luxon';
 import { ModelRangeError } from '../errors.js';
 import type { Span } from '../scenario/types.js';
-import { VOLUME_BIN_MS, type Contact, type PlanResult } from './types.js';
+import { VOLUME_BIN_MS, type Contact, type ContactLink, type PlanResult } from './types.js';
 import { uniqueBitsIn, uniqueVolumeOf, uniqueVolumes, type UniqueVolume } from './unique-volume.js';
 
 export type DayMode = { kind: 'utc' } | { kind: 'local' };
@@ -203,6 +203,15 @@ export function dailyTotals(plan: PlanResult, mode: DayMode): DailyRow[] {
  * counted once (unique-volume.ts), the station-sums beside them. With `delivered`
  * (spacecraft id -> bits that left its recorder) deliveredBits is set.
  */
+/**
+ * The contact read with another radio's link in place of its data link: its own fields
+ * through the prototype chain, so a read-only contact view (plan/contact-pack.ts) serves
+ * as well as an object.
+ */
+function withDataLink(c: Contact, link: ContactLink): Contact {
+  return Object.create(c, { link: { value: link, enumerable: true } }) as Contact;
+}
+
 export function spacecraftTotals(
   plan: PlanResult,
   delivered?: ReadonlyMap<string, number>,
@@ -238,7 +247,7 @@ export function spacecraftTotals(
       t.otherRadios = radioIds.map((radioId) => {
         const asData = mine.flatMap((c) => {
           const l = c.otherLinks!.find((x) => x.radioId === radioId);
-          return l ? [{ ...c, link: l }] : [];
+          return l ? [withDataLink(c, l)] : [];
         });
         const v = uniqueVolumeOf(u.spacecraftId, asData);
         return { radioId, volumeBits: v.volumeBits, stationSumVolumeBits: v.stationSumBits };

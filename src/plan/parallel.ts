@@ -21,6 +21,7 @@ import { reviveError, type SerializedError } from '../errors.js';
 import { runningWorkers, terminateWorkers } from './workers.js';
 import { attachContactTexts, type BatchTexts } from '../report/contact-store.js';
 import { attachPlanParts, type BatchParts } from './worker-parts.js';
+import { unpackContacts, type ContactPack } from './contact-pack.js';
 
 /** A batch of spacecraft sent to a worker. */
 export interface BatchJob {
@@ -29,7 +30,9 @@ export interface BatchJob {
 }
 
 /** What a plan worker posts back for a batch: its result, or its error as data. */
-export type WorkerReply = { ok: true; batch: number; result: PlanResult; texts?: BatchTexts; parts?: BatchParts } | { ok: false; error: SerializedError };
+export type WorkerReply =
+  | { ok: true; batch: number; result: PlanResult; texts?: BatchTexts; parts?: BatchParts; packed?: ContactPack }
+  | { ok: false; error: SerializedError };
 
 export interface ParallelOptions extends PlanOptions {
   /**
@@ -46,7 +49,9 @@ export interface ParallelOptions extends PlanOptions {
   weekParts?: 'none' | 'unique' | 'margins';
   /**
    * With weekParts: every window will be shown as found (no schedule, no booking), so the
-   * contacts may cross without their rate step functions (only the unique volumes read them).
+   * contacts may cross without their rate step functions (only the unique volumes read them),
+   * as columns read through views (plan/contact-pack.ts): the merged plan's contacts are then
+   * read-only.
    */
   slimContacts?: boolean;
 }
@@ -120,6 +125,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Para
   const ids = new Map<string, string>();
   for (const x of [...scenario.spacecraft, ...scenario.stations]) ids.set(x.id, x.id);
   for (const sc of scenario.spacecraft) for (const r of sc.radios) ids.set(r.id, r.id);
+  const shared = (id: string): string => ids.get(id) ?? id;
   try {
     await new Promise<void>((resolve, reject) => {
       let failed = false;
@@ -149,7 +155,7 @@ export async function runPlanParallel(scenario: Scenario, span: Span, opts: Para
             fail(reviveError(r.error));
             return;
           }
-          parts[r.batch] = withSharedIds(r.result, ids);
+          parts[r.batch] = r.packed ? { ...r.result, contacts: unpackContacts(r.packed, shared) } : withSharedIds(r.result, ids);
           texts[r.batch] = r.texts;
           figures[r.batch] = r.parts;
           done++; // not inside onProgress?.(...): its arguments are skipped without a hook

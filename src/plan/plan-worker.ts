@@ -10,13 +10,14 @@
 import { parentPort, workerData } from 'node:worker_threads';
 import { join } from 'node:path';
 import { runPlanWithGeometry, type PlanOptions } from './run.js';
-import { batchParts, withoutRatePieces } from './worker-parts.js';
+import { batchParts } from './worker-parts.js';
 import type { AtmosphereTable } from '../link/atmosphere/types.js';
 import { serializeError } from '../errors.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import { newLinkTableCache } from './link.js';
 import type { BatchJob, WorkerReply } from './parallel.js';
 import { renderBatchTexts, transferablesOf } from '../report/batch-text.js';
+import { packContacts, packTransferables } from './contact-pack.js';
 
 interface Job {
   /** The scenario without its spacecraft (they come batch by batch). */
@@ -29,7 +30,7 @@ interface Job {
   spillDir?: string;
   /** Make each batch's own figures too (plan/worker-parts.ts); 'margins': with the margin rows. */
   weekParts: 'none' | 'unique' | 'margins';
-  /** Leave the rate step functions out of the reply (plan/worker-parts.ts withoutRatePieces): every window is shown as found. */
+  /** Send the contacts as columns, without their rate step functions (plan/contact-pack.ts): every window is shown as found. */
   slimContacts: boolean;
 }
 
@@ -52,7 +53,12 @@ parentPort?.on('message', (msg: BatchJob) => {
     }
     if (job.weekParts !== 'none') {
       reply.parts = batchParts(scenario, result, geometry, job.weekParts === 'margins', marginTables);
-      if (job.slimContacts) reply.result = withoutRatePieces(result);
+      if (job.slimContacts) {
+        // the contacts cross as columns (plan/contact-pack.ts), without their rate step functions
+        reply.packed = packContacts(result.contacts);
+        reply.result = { ...result, contacts: [] };
+        transfer = [...transfer, ...packTransferables(reply.packed)];
+      }
     }
   } catch (err) {
     reply = { ok: false, error: serializeError(err) };
