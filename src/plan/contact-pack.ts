@@ -6,7 +6,8 @@
  *
  * Why: a contact that crosses threads as an object graph weighs about 1.2 kB on the main
  * thread (every number of an object is a heap number of its own); as columns it weighs
- * about 0.25 kB, and the main thread of a 1,000-spacecraft week holds 800,000 of them.
+ * about 0.38 kB (leo50: 335 B of columns, 42 B of views), and the main thread of a
+ * 1,000-spacecraft week holds 800,000 of them.
  *
  * Only for plans whose contacts the main thread reads and never changes (every window
  * shown as found: no schedule, no booking, no shard file): a view has getters only, so an
@@ -67,7 +68,7 @@ export interface ContactPack {
   numbers: Float64Array;
   flags: Uint16Array;
   /** count x 3 indices into `strings`: spacecraft id, station id, the link's radio id (0 without a link). */
-  ids: Uint32Array;
+  ids: Uint16Array | Uint32Array;
   strings: string[];
   /** Contact i's volume bins: bins[binFrom[i] .. binFrom[i + 1]). */
   binFrom: Uint32Array;
@@ -77,7 +78,7 @@ export interface ContactPack {
   expectedBins: Float64Array;
   /** Its MODCOD times: names strings[modcodName[k]] and seconds modcodS[k], k in modcodFrom[i] .. modcodFrom[i + 1]. */
   modcodFrom: Uint32Array;
-  modcodName: Uint32Array;
+  modcodName: Uint16Array | Uint32Array;
   modcodS: Float64Array;
   /** Other radios' links of the contacts that have them, by contact index. */
   otherLinks: [number, ContactLink[]][];
@@ -196,7 +197,9 @@ export function packContacts(contacts: readonly Contact[]): ContactPack {
     expectedFrom[i + 1] = e;
     modcodFrom[i + 1] = m;
   }
-  return { count: n, numbers, flags, ids, strings, binFrom, bins, expectedFrom, expectedBins, modcodFrom, modcodName, modcodS, otherLinks };
+  // indices in 16 bits where the string table allows (it nearly always does)
+  const narrow = (a: Uint32Array): Uint16Array | Uint32Array => (strings.length <= 0xffff ? Uint16Array.from(a) : a);
+  return { count: n, numbers, flags, ids: narrow(ids), strings, binFrom, bins, expectedFrom, expectedBins, modcodFrom, modcodName: narrow(modcodName), modcodS, otherLinks };
 }
 
 function withoutPieces(l: ContactLink): ContactLink {
@@ -216,8 +219,8 @@ interface PackReader extends ContactPack {
 }
 
 /**
- * The contacts of a pack, as views (one small object each; a contact's link view is made
- * on first use and kept). `shared` maps each id to the string to hand out (the scenario's
+ * The contacts of a pack, as views (one small object each; a contact's link view is a new
+ * small object on every read, not kept). `shared` maps each id to the string to hand out (the scenario's
  * own, so that a million views do not each carry a copy).
  */
 export function unpackContacts(pack: ContactPack, shared?: (id: string) => string): Contact[] {
@@ -231,7 +234,6 @@ const numberAt = (p: PackReader, i: number, k: number): number => p.numbers[i * 
 
 /** A contact of a pack (the Contact shape; an optional field it lacks reads as undefined). */
 class PackedContact {
-  #link: PackedLink | undefined = undefined;
   constructor(
     private readonly p: PackReader,
     private readonly i: number,
@@ -290,7 +292,7 @@ class PackedContact {
   }
   get link(): ContactLink | undefined {
     if (!(this.p.flags[this.i]! & HAS_LINK)) return undefined;
-    return (this.#link ??= new PackedLink(this.p, this.i)) as unknown as ContactLink;
+    return new PackedLink(this.p, this.i) as unknown as ContactLink;
   }
   get otherLinks(): ContactLink[] | undefined {
     return this.p.others.get(this.i);
