@@ -13,6 +13,7 @@
  * values or more.
  */
 import { formatDuration, isoUtc } from '../time/format.js';
+import { roundedText } from './contact-text.js';
 
 const DAY_MS = 86_400_000;
 /** Days from 1970 to the end of 9999 (time/format.ts isoMs's fast range). */
@@ -105,18 +106,107 @@ export class ByteWriter {
 
   /** A non-negative safe integer's decimal digits. */
   private digits(v: number): void {
+    if (v < 1e9) {
+      this.small(v);
+      return;
+    }
+    // v = hi * 1e9 + lo, both exact (v < 2^53); the quotient's rounding corrected
+    let hi = Math.floor(v / 1e9);
+    let lo = v - hi * 1e9;
+    if (lo < 0) {
+      hi--;
+      lo += 1e9;
+    } else if (lo >= 1e9) {
+      hi++;
+      lo -= 1e9;
+    }
+    this.small(hi);
+    this.room(9);
+    const buf = this.buf;
+    let p = this.pos + 9;
+    this.pos = p;
+    let x = lo | 0;
+    for (let i = 0; i < 9; i++) {
+      const q = (x / 10) | 0;
+      buf[--p] = C0 + x - 10 * q;
+      x = q;
+    }
+  }
+
+  /** The digits of an integer 0 <= v < 1e9. */
+  private small(v: number): void {
+    let x = v | 0;
     let n = 1;
-    for (let x = v; x >= 10; n++) x = (x - (x % 10)) / 10;
+    for (let t = x; t >= 10; n++) t = (t / 10) | 0;
     if (this.pos + n > this.buf.length) this.grow(n);
     const buf = this.buf;
     let p = this.pos + n;
     this.pos = p;
-    let x = v;
     do {
-      const d = x % 10;
-      buf[--p] = C0 + d;
-      x = (x - d) / 10;
+      const q = (x / 10) | 0;
+      buf[--p] = C0 + x - 10 * q;
+      x = q;
     } while (x > 0);
+  }
+
+  /** `d` digits of an integer 0 <= v < 10^d, zeros in front. */
+  private padded(v: number, d: number): void {
+    if (this.pos + d > this.buf.length) this.grow(d);
+    const buf = this.buf;
+    let p = this.pos + d;
+    this.pos = p;
+    let x = v;
+    for (let i = 0; i < d; i++) {
+      const r = x % 10;
+      buf[--p] = C0 + r;
+      x = (x - r) / 10;
+    }
+  }
+
+  /** v.toFixed(d) (d 0..6). */
+  fixed(v: number, d: number): void {
+    const n = scaledRound(v < 0 ? -v : v, d);
+    if (n < 0) {
+      this.ascii(v.toFixed(d)); // not finite, large, or too near a half to be sure
+      return;
+    }
+    if (v < 0) this.byte(45); // toFixed's sign: also of a value rounded to zero, never of -0
+    const scale = POW10[d]!;
+    const frac = n % scale;
+    this.digits((n - frac) / scale);
+    if (d > 0) {
+      this.byte(46);
+      this.padded(frac, d);
+    }
+  }
+
+  /** report/contact-text.ts roundedText(v, d) (d 0..6): toFixed's digits, trailing zeros dropped, "null" when not finite. */
+  rounded(v: number, d: number): void {
+    if (!Number.isFinite(v)) {
+      this.ascii('null');
+      return;
+    }
+    const n = scaledRound(v < 0 ? -v : v, d);
+    if (n < 0) {
+      this.ascii(roundedText(v, d));
+      return;
+    }
+    if (n === 0) {
+      this.byte(C0); // "0", "-0" included
+      return;
+    }
+    if (v < 0) this.byte(45);
+    const scale = POW10[d]!;
+    let frac = n % scale;
+    this.digits((n - frac) / scale);
+    if (frac === 0) return;
+    let k = d;
+    for (let r = frac % 10; r === 0; r = frac % 10) {
+      frac /= 10;
+      k--;
+    }
+    this.byte(46);
+    this.padded(frac, k);
   }
 
   /** String(v) of a number (safe integers by their digits, anything else through String). */
@@ -145,31 +235,42 @@ export class ByteWriter {
 
   /** time/format.ts isoUtc(tMs, decimals) (decimals 0..3). */
   iso(tMs: number, decimals: number): void {
-    const scale = 10 ** (3 - decimals);
+    const scale = ISO_SCALE[decimals]!; // 10 ** (3 - decimals)
     const ms = Math.round(tMs / scale) * scale;
     if (!splitMs(ms)) {
       this.ascii(isoUtc(tMs, decimals)); // outside 1970..9999 (or not a time: the same error)
       return;
     }
-    this.room(24);
+    if (this.pos + 24 > this.buf.length) this.grow(24);
     const buf = this.buf;
-    for (let i = 0; i < 11; i++) buf[this.pos++] = dayText[i]!; // "YYYY-MM-DDT"
-    this.two(part.h);
-    buf[this.pos++] = 58; // ':'
-    this.two(part.m);
-    buf[this.pos++] = 58;
-    this.two(part.s);
+    let p = this.pos;
+    for (let i = 0; i < 11; i++) buf[p++] = dayText[i]!; // "YYYY-MM-DDT"
+    let v = part.h;
+    let q = (v / 10) | 0;
+    buf[p++] = C0 + q;
+    buf[p++] = C0 + v - 10 * q;
+    buf[p++] = 58; // ':'
+    v = part.m;
+    q = (v / 10) | 0;
+    buf[p++] = C0 + q;
+    buf[p++] = C0 + v - 10 * q;
+    buf[p++] = 58;
+    v = part.s;
+    q = (v / 10) | 0;
+    buf[p++] = C0 + q;
+    buf[p++] = C0 + v - 10 * q;
     if (decimals > 0) {
-      buf[this.pos++] = 46; // '.'
+      buf[p++] = 46; // '.'
       const milli = part.milli;
-      const d1 = milli % 10;
-      const d10 = ((milli - d1) / 10) % 10;
-      const d100 = (milli - d1 - 10 * d10) / 100;
-      buf[this.pos++] = C0 + d100;
-      if (decimals > 1) buf[this.pos++] = C0 + d10;
-      if (decimals > 2) buf[this.pos++] = C0 + d1;
+      const d100 = (milli / 100) | 0;
+      const rest = milli - 100 * d100;
+      const d10 = (rest / 10) | 0;
+      buf[p++] = C0 + d100;
+      if (decimals > 1) buf[p++] = C0 + d10;
+      if (decimals > 2) buf[p++] = C0 + rest - 10 * d10;
     }
-    buf[this.pos++] = 90; // 'Z'
+    buf[p++] = 90; // 'Z'
+    this.pos = p;
   }
 
   /** report/calendar.ts icalUtc(tMs, round): "YYYYMMDDTHHMMSSZ", the fraction dropped by `ceil` or floor. */
@@ -227,16 +328,16 @@ export class ByteWriter {
   /** report/table.ts formatBits(bits): bits in Mbit, Gbit, Tbit. */
   bits(bits: number): void {
     if (bits >= 1e12) {
-      this.ascii((bits / 1e12).toFixed(2));
+      this.fixed(bits / 1e12, 2);
       this.ascii(' Tbit');
     } else if (bits >= 1e9) {
-      this.ascii((bits / 1e9).toFixed(2));
+      this.fixed(bits / 1e9, 2);
       this.ascii(' Gbit');
     } else if (bits >= 1e6) {
-      this.ascii((bits / 1e6).toFixed(1));
+      this.fixed(bits / 1e6, 1);
       this.ascii(' Mbit');
     } else if (bits >= 1e3) {
-      this.ascii((bits / 1e3).toFixed(1));
+      this.fixed(bits / 1e3, 1);
       this.ascii(' kbit');
     } else {
       this.number(Math.round(bits));
@@ -277,6 +378,29 @@ export class ByteWriter {
     }
     this.pos = end + 3 * k;
   }
+}
+
+const POW10 = [1, 10, 100, 1000, 1e4, 1e5, 1e6];
+const ISO_SCALE = [1000, 100, 10, 1];
+/** 2^40: below it a product a * 10^d is within 2^-13 of its exact value. */
+const EXACT_BELOW = 1_099_511_627_776;
+/** Half of the band about .5 where the product's rounding error could change the rounding (2^-10, eight times the error). */
+const HALF_BAND = 1 / 1024;
+
+/**
+ * round(a * 10^d) (a >= 0, d 0..6) as toFixed rounds it: the exact value of the double
+ * rounded to d decimals. a * 10^d is computed in doubles, within 2^-13 of the exact product
+ * below 2^40, so its rounding is the exact one wherever the fraction is not within 2^-10
+ * of one half. -1 where that is not proven (not finite, 2^40 or more, near a half): the
+ * caller then asks toFixed.
+ */
+function scaledRound(a: number, d: number): number {
+  const p = a * POW10[d]!;
+  if (!(p < EXACT_BELOW)) return -1;
+  const whole = Math.floor(p);
+  const f = p - whole; // exact
+  if (f > 0.5 - HALF_BAND && f < 0.5 + HALF_BAND) return -1;
+  return f > 0.5 ? whole + 1 : whole;
 }
 
 let breaks: Int32Array = new Int32Array(16);

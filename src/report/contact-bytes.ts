@@ -9,7 +9,7 @@
  * contactTexts, in test/report/contact-text.test.ts.
  */
 import type { Contact } from '../plan/types.js';
-import { CONTACT_COLUMNS } from './contact-columns.js';
+import { CONTACT_COLUMNS, type Cell } from './contact-columns.js';
 import { CONTACT_JSON_PAD, cellCsv, jsonString, otherRadiosJson, type CsvLayout } from './contact-text.js';
 import type { ByteWriter } from './byte-writer.js';
 
@@ -28,6 +28,31 @@ const MODCOD_CLOSE = enc(`\n${MODCOD_PAD}}`);
 const RECORD_CLOSE = enc(`\n${CONTACT_JSON_PAD}}`);
 const OTHER_PRETTY_FIRST = enc(`${KEY_PAD}"other_radios": `);
 const OTHER_PRETTY_NEXT = enc(`,${KEY_PAD}"other_radios": `);
+
+/** CONTACT_COLUMNS as objects of one shape (the loop below reads them all alike). */
+const KIND_VALUE = 0;
+const KIND_ROUNDED = 1;
+const KIND_ISO = 2;
+const KIND_MODCOD = 3;
+interface Column {
+  kind: number;
+  link: boolean;
+  when: ((c: Contact) => boolean) | null;
+  value: (c: Contact) => Cell;
+  num: (c: Contact) => number;
+  ms: (c: Contact) => number;
+  digits: number;
+}
+const noNumber = (): number => Number.NaN;
+const COLUMNS: Column[] = CONTACT_COLUMNS.map((col, i) => ({
+  kind: i === MODCOD_COLUMN ? KIND_MODCOD : col.digits !== undefined ? KIND_ROUNDED : col.iso ? KIND_ISO : KIND_VALUE,
+  link: col.link === true,
+  when: col.when ?? null,
+  value: col.value,
+  num: col.num ?? noNumber,
+  ms: col.ms ?? noNumber,
+  digits: col.digits ?? 0,
+}));
 
 const TRUE = enc('true');
 const FALSE = enc('false');
@@ -79,26 +104,6 @@ function modcodName(name: string): ModcodName {
   return m;
 }
 
-/** report/contact-text.ts roundedText(v, d), written: toFixed's digits with trailing zeros dropped. */
-export function writeRounded(w: ByteWriter, v: number, d: number): void {
-  if (!Number.isFinite(v)) {
-    w.bytes(NULL);
-    return;
-  }
-  const t = v.toFixed(d);
-  if (t.length > 16 || t.indexOf('e') >= 0) {
-    w.ascii(String(Number(t)));
-    return;
-  }
-  let end = t.length;
-  if (d > 0) {
-    while (t.charCodeAt(end - 1) === 48) end--; // '0'
-    if (t.charCodeAt(end - 1) === 46) end--; // '.'
-  }
-  if (end === 2 && t.charCodeAt(0) === 45 && t.charCodeAt(1) === 48) w.byte(48); // "-0" is "0"
-  else w.asciiTo(t, end);
-}
-
 // the closed MODCODs of one contact, by time (reused)
 let closedNames: ModcodName[] = [];
 let closedSecs: number[] = [];
@@ -106,6 +111,7 @@ let closedSecs: number[] = [];
 /** modcodTexts of report/contact-text.ts, written: the JSON object in both forms and, when `inCsv`, the CSV cell. */
 function writeModcod(times: Record<string, number>, inCsv: boolean, csv: ByteWriter, json: ByteWriter, line: ByteWriter): void {
   const keys = Object.keys(times);
+  const values = Object.values(times); // in the order of keys (own enumerable string keys)
   const n = keys.length;
   if (n === 0) {
     json.byte(123);
@@ -117,25 +123,27 @@ function writeModcod(times: Record<string, number>, inCsv: boolean, csv: ByteWri
   // Array.prototype.sort's order of strings (UTF-16 code units), by insertion: a dozen names
   for (let i = 1; i < n; i++) {
     const k = keys[i]!;
+    const v = values[i]!;
     let j = i - 1;
     while (j >= 0 && keys[j]! > k) {
       keys[j + 1] = keys[j]!;
+      values[j + 1] = values[j]!;
       j--;
     }
     keys[j + 1] = k;
+    values[j + 1] = v;
   }
   json.byte(123);
   line.byte(123);
   let closed = 0;
   let special = false;
   for (let i = 0; i < n; i++) {
-    const name = keys[i]!;
-    const t = times[name] ?? 0;
-    const m = modcodName(name);
+    const t = values[i] ?? 0;
+    const m = modcodName(keys[i]!);
     json.bytes(i === 0 ? m.prettyFirst : m.prettyNext);
     line.bytes(i === 0 ? m.compactFirst : m.compactNext);
     const at = json.pos;
-    writeRounded(json, t, 1);
+    json.rounded(t, 1);
     line.copyOf(json, at, json.pos);
     if (inCsv && t > 0) {
       // insertion after every longer or equal time: names come sorted, so ties stay by name
@@ -159,7 +167,7 @@ function writeModcod(times: Record<string, number>, inCsv: boolean, csv: ByteWri
     if (i > 0) csv.byte(59); // ';'
     csv.bytes(closedNames[i]!.csv);
     csv.byte(61); // '='
-    csv.ascii(closedSecs[i]!.toFixed(1));
+    csv.fixed(closedSecs[i]!, 1);
   }
   if (special) csv.byte(34);
   if (closedNames.length > 1024) {
@@ -175,9 +183,10 @@ export function writeContactTexts(c: Contact, layout: CsvLayout, csv: ByteWriter
   let firstJson = true;
   let firstCsv = true;
   const mask = layout.mask;
-  for (let i = 0; i < CONTACT_COLUMNS.length; i++) {
-    const col = CONTACT_COLUMNS[i]!;
-    const present = !(col.link && !c.link) && !(col.when && !col.when(c));
+  const hasLink = c.link !== undefined;
+  for (let i = 0; i < COLUMNS.length; i++) {
+    const col = COLUMNS[i]!;
+    const present = !(col.link && !hasLink) && !(col.when !== null && !col.when(c));
     const inCsv = mask[i] === true;
     if (inCsv) {
       if (!firstCsv) csv.byte(44); // ','
@@ -187,18 +196,19 @@ export function writeContactTexts(c: Contact, layout: CsvLayout, csv: ByteWriter
     json.bytes(firstJson ? PRETTY_FIRST[i]! : PRETTY_NEXT[i]!);
     line.bytes(firstJson ? COMPACT_FIRST[i]! : COMPACT_NEXT[i]!);
     firstJson = false;
-    if (i === MODCOD_COLUMN) {
+    const kind = col.kind;
+    if (kind === KIND_MODCOD) {
       writeModcod(c.link!.timeInModcodS, inCsv, csv, json, line);
-    } else if (col.digits !== undefined) {
-      const v = col.num!(c);
+    } else if (kind === KIND_ROUNDED) {
+      const v = col.num(c);
       const at = json.pos;
-      writeRounded(json, v, col.digits);
+      json.rounded(v, col.digits);
       line.copyOf(json, at, json.pos);
       if (inCsv && Number.isFinite(v)) csv.copyOf(json, at, json.pos);
-    } else if (col.iso) {
+    } else if (kind === KIND_ISO) {
       json.byte(34);
       const at = json.pos;
-      json.iso(col.ms!(c), 3);
+      json.iso(col.ms(c), 3);
       const end = json.pos;
       json.byte(34);
       line.copyOf(json, at - 1, end + 1);

@@ -124,13 +124,13 @@ export function writeEvent(w: ByteWriter, ctx: EventBytesContext, c: Contact, ui
   w.bytes(DURATION);
   w.duration(c.durationS);
   w.bytes(MAX_ELEVATION);
-  w.ascii(c.maxElevationDeg.toFixed(1));
+  w.fixed(c.maxElevationDeg, 1);
   w.bytes(DEG_AT);
   w.iso(c.tcaMs, 0);
   w.bytes(AZIMUTH);
-  w.ascii(c.aosAzimuthDeg.toFixed(0));
+  w.fixed(c.aosAzimuthDeg, 0);
   w.bytes(DEG_AT_AOS);
-  w.ascii(c.losAzimuthDeg.toFixed(0));
+  w.fixed(c.losAzimuthDeg, 0);
   w.bytes(DEG_AT_LOS);
   const link = c.link;
   if (link) {
@@ -147,9 +147,9 @@ export function writeEvent(w: ByteWriter, ctx: EventBytesContext, c: Contact, ui
       w.bytes(EXPECTED);
     }
     w.bytes(WORST);
-    w.ascii(link.worstMarginDb.toFixed(1));
+    w.fixed(link.worstMarginDb, 1);
     w.bytes(DB_AT);
-    w.ascii(link.worstMarginElevationDeg.toFixed(1));
+    w.fixed(link.worstMarginElevationDeg, 1);
     w.bytes(DEG_ELEVATION);
   }
   w.fold(at);
