@@ -21,25 +21,16 @@ import { FORM, type BatchTexts, type FormBytes } from './contact-store.js';
 export type { BatchTexts } from './contact-store.js';
 
 /**
- * The forms' growing buffers, kept from batch to batch (a worker renders one batch after
- * another): texts are written into them as UTF-8 as they are made (report/contact-bytes.ts,
- * report/event-bytes.ts), never held as JS strings.
- */
-const writers: ByteWriter[] = [];
-
-/**
  * Renders every contact of `plan` in every form (pure but for `spillFile`: when given, the
  * forms' bytes are written there, one region after another, and only their offsets kept).
  */
 export function renderBatchTexts(plan: PlanResult, spillFile?: string): BatchTexts {
   const n = plan.contacts.length;
   const layout = csvLayout(plan.contacts);
-  // first guesses of the bytes per contact (a buffer grows when they are short)
-  const guess = [600, 1500, 1100, 800];
-  for (let f = 0; f < 4; f++) {
-    writers[f] ??= new ByteWriter(n * guess[f]!);
-    writers[f]!.pos = 0;
-  }
+  // one growing buffer per form, the texts written into it as UTF-8 as they are made
+  // (report/contact-bytes.ts, report/event-bytes.ts), never held as JS strings; sized by a
+  // first guess of the bytes per contact (a buffer grows when it is short)
+  const writers = [600, 1500, 1100, 800].map((bytes) => new ByteWriter(n * bytes));
   const csv = writers[FORM.csv]!;
   const json = writers[FORM.json]!;
   const line = writers[FORM.line]!;
@@ -58,7 +49,8 @@ export function renderBatchTexts(plan: PlanResult, spillFile?: string): BatchTex
     icsAt[i + 1] = ics.pos;
   }
   if (spillFile === undefined) {
-    // each form's bytes in a buffer of their own (transferable without the unused tail)
+    // each form's bytes in a buffer of their own (transferable without the unused tail);
+    // spilled, they are written from the growing buffers themselves
     const forms = writers.map((w, f): FormBytes => {
       const bytes = new Uint8Array(w.pos);
       bytes.set(w.buf.subarray(0, w.pos));
