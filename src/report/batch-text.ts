@@ -21,16 +21,26 @@ import { FORM, type BatchTexts, type FormBytes } from './contact-store.js';
 export type { BatchTexts } from './contact-store.js';
 
 /**
+ * One growing buffer per form, the texts written into it as UTF-8 as they are made
+ * (report/contact-bytes.ts, report/event-bytes.ts), never held as JS strings. Kept from
+ * batch to batch (a worker renders one after another): a batch's buffers left to the
+ * garbage collector linger, 200 x 20 x 7 d peak RSS 817 MB kept against 886 MB dropped.
+ */
+const writers: ByteWriter[] = [];
+
+/**
  * Renders every contact of `plan` in every form (pure but for `spillFile`: when given, the
  * forms' bytes are written there, one region after another, and only their offsets kept).
  */
 export function renderBatchTexts(plan: PlanResult, spillFile?: string): BatchTexts {
   const n = plan.contacts.length;
   const layout = csvLayout(plan.contacts);
-  // one growing buffer per form, the texts written into it as UTF-8 as they are made
-  // (report/contact-bytes.ts, report/event-bytes.ts), never held as JS strings; sized by a
-  // first guess of the bytes per contact (a buffer grows when it is short)
-  const writers = [600, 1500, 1100, 800].map((bytes) => new ByteWriter(n * bytes));
+  // first guesses of the bytes per contact (a buffer grows when it is short)
+  const guess = [600, 1500, 1100, 800];
+  for (let f = 0; f < 4; f++) {
+    writers[f] ??= new ByteWriter(n * guess[f]!);
+    writers[f]!.pos = 0;
+  }
   const csv = writers[FORM.csv]!;
   const json = writers[FORM.json]!;
   const line = writers[FORM.line]!;
