@@ -79,7 +79,17 @@ export function icalUtc(tMs: number, round: 'floor' | 'ceil'): string {
   return `${t.slice(0, 4)}${t.slice(5, 7)}${t.slice(8, 13)}${t.slice(14, 16)}${t.slice(17, 19)}Z`;
 }
 
-const uidPart = (s: string) => s.replace(/[^A-Za-z0-9._-]/g, '_');
+const UID_OTHER = /[^A-Za-z0-9._-]/g;
+/** An id as a UID part (every other UTF-16 unit an underscore), memoised: ids repeat in every contact. */
+const uidParts = new Map<string, string>();
+function uidPart(s: string): string {
+  let p = uidParts.get(s);
+  if (p === undefined) {
+    p = s.replace(UID_OTHER, '_');
+    if (uidParts.size < 100_000) uidParts.set(s, p);
+  }
+  return p;
+}
 
 /** Stable UIDs of the plan's contacts, in plan order (index i: plan.contacts[i]). */
 export function contactUids(plan: PlanResult): string[] {

@@ -33,8 +33,9 @@ export interface ContactColumn {
   /** A number rounded to this many decimals: `value` is round(num(c), digits) (report/contact-text.ts formats it once). */
   digits?: number;
   num?: (c: Contact) => number;
-  /** `value` is an ISO time (no character JSON or CSV would escape). */
+  /** `value` is an ISO time (no character JSON or CSV would escape): isoUtc(ms(c), 3). */
   iso?: true;
+  ms?: (c: Contact) => number;
 }
 
 /** A column of a number rounded to `digits` decimals (null when not finite). */
@@ -44,7 +45,7 @@ function rounded(key: string, digits: number, num: (c: Contact) => number, more:
 
 /** A column of an ISO 8601 UTC time to the millisecond. */
 function isoColumn(key: string, ms: (c: Contact) => number, more: Partial<ContactColumn> = {}): ContactColumn {
-  return { key, ...more, iso: true, value: (c) => isoUtc(ms(c), 3) };
+  return { key, ...more, iso: true, ms, value: (c) => isoUtc(ms(c), 3) };
 }
 
 /**

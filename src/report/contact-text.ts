@@ -114,7 +114,7 @@ function modcodTexts(timeInModcodS: Record<string, number>, pad: string, csv: bo
 }
 
 /** The other radios' list: [pretty at `pad`, compact]. */
-function otherRadiosJson(links: readonly ContactLink[], pad: string): [string, string] {
+export function otherRadiosJson(links: readonly ContactLink[], pad: string): [string, string] {
   if (links.length === 0) return ['[]', '[]'];
   const item = `${pad}  `;
   const field = `${pad}    `;

@@ -5,7 +5,10 @@
 // its CONTACT_COLUMNS cells. Exact equality on a demo day (every kind of target, link
 // and light time) and on 3,000 seeded random contacts with awkward values (NaN, -0,
 // halves at the rounding digit, huge and tiny numbers, ids with commas, quotes and
-// non-ASCII letters, other radios, absent links).
+// non-ASCII letters, other radios, absent links). The plan workers' byte renderer
+// (src/report/batch-text.ts: report/contact-bytes.ts and report/event-bytes.ts) is held to
+// the same references, and its iCalendar events to report/calendar.ts eventText (itself
+// checked against RFC 5545 and ical.js in test/report/calendar.test.ts).
 import { describe, it, expect } from 'vitest';
 import { stringify } from 'csv-stringify/sync';
 import { loadScenario } from '../../src/scenario/load.js';
@@ -14,8 +17,11 @@ import { runPlan } from '../../src/plan/run.js';
 import { contactJson } from '../../src/report/plan.js';
 import { CONTACT_COLUMNS, contactRecord } from '../../src/report/contact-columns.js';
 import { CONTACT_JSON_PAD, contactTexts, csvLayout, roundedText } from '../../src/report/contact-text.js';
-import type { Contact, ContactLink } from '../../src/plan/types.js';
+import type { Contact, ContactLink, PlanResult } from '../../src/plan/types.js';
 import { mulberry32 } from '../fixtures/prng.js';
+import { renderBatchTexts } from '../../src/report/batch-text.js';
+import { FORM } from '../../src/report/contact-store.js';
+import { contactUids, eventContext, eventText } from '../../src/report/calendar.js';
 
 /** The definitions: JSON.stringify and csv-stringify of the generic records. */
 function reference(c: Contact, contacts: Contact[]): { json: string; line: string; csv: string } {
@@ -35,13 +41,33 @@ function reference(c: Contact, contacts: Contact[]): { json: string; line: strin
 
 function expectSame(contacts: Contact[]): void {
   const layout = csvLayout(contacts);
-  for (const c of contacts) {
+  // the same contacts as a worker's batch, rendered as bytes
+  const ids = (key: 'spacecraftId' | 'stationId') => [...new Set(contacts.map((c) => c[key]))];
+  const plan = {
+    span: { startMs: Date.UTC(2026, 2, 5), endMs: Date.UTC(2026, 2, 12) },
+    spacecraft: ids('spacecraftId').map((id, i) => ({ id, name: i % 2 ? `Craft ${id}` : `Ørn; ${id}\\`, priority: 1 })),
+    stations: ids('stationId').map((id) => ({ id, name: `Site, ${id} ✓`, timeZone: 'UTC' })),
+    contacts,
+  } as unknown as PlanResult;
+  const batch = renderBatchTexts(plan);
+  expect(batch.csvHeader).toBe(layout.header);
+  const bytes = (form: number, i: number): string => {
+    const f = batch.forms[form]!;
+    return Buffer.from(f.bytes!.subarray(f.offsets[i]!, f.offsets[i + 1]!)).toString('utf8');
+  };
+  const uids = contactUids(plan);
+  const ctx = eventContext(plan);
+  contacts.forEach((c, i) => {
     const got = contactTexts(c, layout);
     const want = reference(c, contacts);
     expect(got.json).toBe(want.json);
     expect(got.line).toBe(want.line);
     expect(got.csv).toBe(want.csv);
-  }
+    expect(bytes(FORM.json, i)).toBe(want.json);
+    expect(bytes(FORM.line, i)).toBe(want.line);
+    expect(bytes(FORM.csv, i)).toBe(want.csv);
+    expect(bytes(FORM.ics, i)).toBe(eventText(ctx, c, uids[i]!));
+  });
 }
 
 describe('contact texts', () => {
