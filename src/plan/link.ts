@@ -746,7 +746,8 @@ export interface LinkRunStats {
 /** One contact to integrate: its index in the run's contacts and its link. */
 interface Pending {
   contact: Contact;
-  ctx: LinkContext;
+  /** null: no link for the pair (the contact still counts for the overlaps). */
+  ctx: LinkContext | null;
   dataStartMs: number;
   keepPieces: boolean;
 }
@@ -780,35 +781,63 @@ export function integrateContacts(
   const pool: Accumulator[] = [];
   const take = (): Accumulator => pool.pop() ?? new Accumulator(modcodStride, levelCapacity);
 
-  // which contacts overlap another of their spacecraft (they keep their rate pieces)
-  const context = overlapContext ?? contacts;
-  const overlapIdx = contactsOverlappingOwnSpacecraft(context);
-  let overlapping: (c: Contact, ci: number) => boolean;
-  if (context === contacts) overlapping = (_c, ci) => overlapIdx.has(ci);
-  else {
-    const set = new Set<Contact>();
-    for (const i of overlapIdx) set.add(context[i]!);
-    overlapping = (c) => set.has(c);
-  }
-
-  // the links' shared parts, by station and spacecraft (one Map lookup per pair, not per contact)
-  const contexts = new Map<string, LinkContext | null>();
-  const bySpacecraft = new Map<string, Pending[]>();
-  for (let ci = 0; ci < contacts.length; ci++) {
-    const c = contacts[ci]!;
-    const key = linkKey(c.spacecraftId, c.stationId);
-    let ctx = contexts.get(key);
+  // the links' shared parts, by spacecraft and station (made on a pair's first contact)
+  const contexts = new Map<string, Map<string, LinkContext | null>>();
+  const contextOf = (c: Contact): LinkContext | null => {
+    let bySt = contexts.get(c.spacecraftId);
+    if (!bySt) {
+      bySt = new Map();
+      contexts.set(c.spacecraftId, bySt);
+    }
+    let ctx = bySt.get(c.stationId);
     if (ctx === undefined) {
-      const link = setup.links.get(key);
+      const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
       const site = link ? geometry.sites[siteIndex.get(c.stationId) ?? -1] : undefined;
       ctx = link && site ? linkContextOf(link, site) : null;
-      contexts.set(key, ctx);
+      bySt.set(c.stationId, ctx);
     }
-    if (ctx === null) continue;
-    const p: Pending = { contact: c, ctx, dataStartMs: Math.min(c.aosMs + acqMs, c.losMs), keepPieces: overlapping(c, ci) };
-    const list = bySpacecraft.get(c.spacecraftId);
+    return ctx;
+  };
+  const pendingOf = (c: Contact, ctx: LinkContext | null, keepPieces: boolean): Pending => ({
+    contact: c,
+    ctx,
+    dataStartMs: Math.min(c.aosMs + acqMs, c.losMs),
+    keepPieces,
+  });
+  // every contact by spacecraft, in AOS order (stable), then those with a link
+  const bySpacecraft = new Map<string, Pending[]>();
+  const group = (p: Pending): void => {
+    const list = bySpacecraft.get(p.contact.spacecraftId);
     if (list) list.push(p);
-    else bySpacecraft.set(c.spacecraftId, [p]);
+    else bySpacecraft.set(p.contact.spacecraftId, [p]);
+  };
+  if (overlapContext === undefined || overlapContext === contacts) {
+    // which contacts overlap another of their spacecraft (they keep their rate pieces):
+    // contactsOverlappingOwnSpacecraft's clusters, over the same lists sorted by AOS
+    for (const c of contacts) group(pendingOf(c, contextOf(c), false));
+    for (const list of bySpacecraft.values()) {
+      list.sort((a, b) => a.contact.aosMs - b.contact.aosMs);
+      let reachMs = -Infinity;
+      let first = 0;
+      const close = (end: number) => {
+        if (end - first > 1) for (let j = first; j < end; j++) list[j]!.keepPieces = true;
+      };
+      for (let i = 0; i < list.length; i++) {
+        const c = list[i]!.contact;
+        if (!(c.aosMs < reachMs)) {
+          close(i);
+          first = i;
+        }
+        if (c.losMs > reachMs) reachMs = c.losMs;
+      }
+      close(list.length);
+    }
+  } else {
+    const overlapIdx = contactsOverlappingOwnSpacecraft(overlapContext);
+    const set = new Set<Contact>();
+    for (const i of overlapIdx) set.add(overlapContext[i]!);
+    for (const c of contacts) group(pendingOf(c, contextOf(c), set.has(c)));
+    for (const list of bySpacecraft.values()) list.sort((a, b) => a.contact.aosMs - b.contact.aosMs);
   }
 
   const evalAt = (acc: Accumulator, interp: StateInterpolator, tMs: number): void => {
@@ -825,12 +854,13 @@ export function integrateContacts(
     pool.push(acc);
   };
 
-  for (const [scId, list] of bySpacecraft) {
+  for (const [scId, all] of bySpacecraft) {
     const target = geometry.targets.get(scId);
     if (!target) continue;
-    const interp = new StateInterpolator(target, geometry.span.startMs);
     // Events in time order: each contact's AOS, its data start, grid times, its LOS.
-    list.sort((a, b) => a.contact.aosMs - b.contact.aosMs);
+    const list = all.filter((p) => p.ctx !== null);
+    if (list.length === 0) continue;
+    const interp = new StateInterpolator(target, geometry.span.startMs);
     const active: Accumulator[] = [];
     let next = 0;
     // grid index range covering all contacts of this spacecraft
@@ -845,7 +875,7 @@ export function integrateContacts(
       while (next < list.length && list[next]!.contact.aosMs <= tMs) {
         const p = list[next++]!;
         const acc = take();
-        acc.open(p.contact, p.ctx, p.dataStartMs, p.keepPieces);
+        acc.open(p.contact, p.ctx!, p.dataStartMs, p.keepPieces);
         evalAt(acc, interp, acc.aosMs);
         if (acc.dataStartMs > acc.aosMs) evalAt(acc, interp, acc.dataStartMs);
         active.push(acc);
