@@ -28,13 +28,18 @@ interface NodeRadii {
 
 const nodeRadii = new WeakMap<Target, NodeRadii>();
 
-function recordNodeRadius(target: Target, originMs: number, stepMs: number, k: number, state: Float64Array): void {
-  if (!(k >= 0) || k > 1e7) return;
+/** The target's node distances for this origin and step (new ones replace others). */
+function nodeRadiiFor(target: Target, originMs: number, stepMs: number): NodeRadii {
   let m = nodeRadii.get(target);
   if (!m || m.originMs !== originMs || m.stepMs !== stepMs) {
     m = { originMs, stepMs, radiusKm: new Float64Array(0), known: new Uint8Array(0) };
     nodeRadii.set(target, m);
   }
+  return m;
+}
+
+function recordNodeRadius(m: NodeRadii, k: number, state: Float64Array): void {
+  if (!(k >= 0) || k > 1e7) return;
   if (k >= m.known.length) {
     const n = Math.max(k + 1, 2 * m.known.length, 1024);
     const r = new Float64Array(n);
@@ -73,6 +78,8 @@ export class StateInterpolator {
   private readonly b = new Float64Array(6);
   /** Propagations made for nodes. */
   propagations = 0;
+  /** Where the nodes' distances are kept (knownNodeRadiusKm), found on the first node. */
+  private radii: NodeRadii | undefined = undefined;
 
   constructor(
     private readonly target: Target,
@@ -93,11 +100,11 @@ export class StateInterpolator {
       } else {
         this.okA = this.target.stateEcefAt(t0, this.a);
         this.propagations++;
-        if (this.okA) recordNodeRadius(this.target, this.originMs, this.stepMs, k, this.a);
+        if (this.okA) recordNodeRadius((this.radii ??= nodeRadiiFor(this.target, this.originMs, this.stepMs)), k, this.a);
       }
       this.okB = this.target.stateEcefAt(t0 + this.stepMs, this.b);
       this.propagations++;
-      if (this.okB) recordNodeRadius(this.target, this.originMs, this.stepMs, k + 1, this.b);
+      if (this.okB) recordNodeRadius((this.radii ??= nodeRadiiFor(this.target, this.originMs, this.stepMs)), k + 1, this.b);
       this.node = k;
     }
     if (!this.okA || !this.okB) return this.target.stateEcefAt(tMs, out);
