@@ -157,9 +157,9 @@ export function prepareRadioAtStationUnnamed(
   minElevationDeg: number,
   tableCache: Map<string, AtmosphereTable> | undefined,
 ): PreparedLink {
-  const input = atmosphereInputFor(station, radio, settings);
+  const input = memoInputFor(station, radio, settings.availabilityPercent);
   const cached = (inp: AtmosphereStationInput, minEl: number): AtmosphereTable => {
-    const key = `${JSON.stringify(inp)}|${minEl}`;
+    const key = inp === input ? `${input.key}|${minEl}` : `${JSON.stringify(inp)}|${minEl}`;
     let t = tableCache?.get(key);
     if (!t) {
       t = buildAtmosphereTable(inp, minEl);
@@ -172,10 +172,40 @@ export function prepareRadioAtStationUnnamed(
     stationGeocentricRadiusKm: Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]),
   };
   if (station.receiver?.kind === 'gt') {
-    const { rainRate001MmH: _r, rainHeightKm: _h, cloudLiquidWaterKgM2: _c, ...clear } = input;
+    const { rainRate001MmH: _r, rainHeightKm: _h, cloudLiquidWaterKgM2: _c, key: _k, ...clear } = input;
     opts.clearSkyAtmosphere = cached(clear, Math.min(minElevationDeg, station.receiver.atElevationDeg));
   }
   return prepareLink(radio, station, settings, table, opts);}
+
+/** An atmosphere input with its JSON text (the table caches' key). */
+type KeyedInput = AtmosphereStationInput & { readonly key: string };
+
+/**
+ * atmosphereInputFor's inputs kept per station (by its frequency, polarisation and
+ * availability: all the input depends on besides the station), each with its JSON text:
+ * a fleet's pairs at one station share them instead of making them per pair. The
+ * key is JSON.stringify of the input as atmosphereInputFor makes it.
+ */
+const inputMemo = new WeakMap<Station, Map<string, KeyedInput>>();
+
+function memoInputFor(station: Station, radio: Radio, availabilityPercent: number): KeyedInput {
+  let byRadio = inputMemo.get(station);
+  if (!byRadio) {
+    byRadio = new Map();
+    inputMemo.set(station, byRadio);
+  }
+  const sub = `${radio.frequencyHz}|${JSON.stringify(radio.polarization)}|${availabilityPercent}`;
+  let k = byRadio.get(sub);
+  if (!k) {
+    const input = atmosphereInputFor(station, radio, { availabilityPercent } as LinkSettings);
+    k = Object.defineProperty({ ...input }, 'key', { value: JSON.stringify(input), enumerable: false }) as KeyedInput;
+    byRadio.set(sub, k);
+  }
+  return k;
+}
+
+/** The exceedance levels' inputs of a station and radio with their table key (exceedanceLevelsFor), kept like memoInputFor's. */
+const levelInputsMemo = new WeakMap<Station, Map<string, { inputs: AtmosphereStationInput[]; key: string }>>();
 
 
 /**
@@ -193,13 +223,24 @@ function exceedanceLevelsFor(
   minElevationDeg: number,
   cache: Map<string, ExceedanceLevelsTable>,
 ): ExceedanceLevelsTable {
-  const inputs = EXPECTED_VOLUME_LEVELS.map((level) => {
-    const input = atmosphereInputFor(station, radio, { ...settings, availabilityPercent: 100 - level.exceedancePercent });
-    if (level.rain) return input;
-    const { rainRate001MmH: _r, rainHeightKm: _h, ...dry } = input;
-    return dry;
-  });
-  const key = `${JSON.stringify(inputs)}|${JSON.stringify(station.receiver)}|${settings.availabilityPercent}|${minElevationDeg}`;
+  let byRadio = levelInputsMemo.get(station);
+  if (!byRadio) {
+    byRadio = new Map();
+    levelInputsMemo.set(station, byRadio);
+  }
+  const sub = `${radio.frequencyHz}|${JSON.stringify(radio.polarization)}|${settings.availabilityPercent}|${minElevationDeg}`;
+  let memo = byRadio.get(sub);
+  if (!memo) {
+    const inputs = EXPECTED_VOLUME_LEVELS.map((level) => {
+      const input = atmosphereInputFor(station, radio, { ...settings, availabilityPercent: 100 - level.exceedancePercent });
+      if (level.rain) return input;
+      const { rainRate001MmH: _r, rainHeightKm: _h, ...dry } = input;
+      return dry;
+    });
+    memo = { inputs, key: `${JSON.stringify(inputs)}|${JSON.stringify(station.receiver)}|${settings.availabilityPercent}|${minElevationDeg}` };
+    byRadio.set(sub, memo);
+  }
+  const { inputs, key } = memo;
   let t = cache.get(key);
   if (!t) {
     const look = newLook();
