@@ -565,8 +565,14 @@ function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number,
   breaks[n++] = 0;
   const dq = q1 - q0;
   if (dq !== 0) {
+    // only a threshold strictly between q0 and q1 can give 0 < f < 1 (rounding is monotone:
+    // one at or beyond either end gives f <= 0 or f >= 1), so the others are not divided
+    const lo = dq > 0 ? q0 : q1;
+    const hi = dq > 0 ? q1 : q0;
     for (let k = 0; k < thr.length; k++) {
-      const f = ((thr[k] as number) - q0) / dq;
+      const tk = thr[k] as number;
+      if (!(tk > lo && tk < hi)) continue;
+      const f = (tk - q0) / dq;
       if (f > 0 && f < 1 && n < breaks.length - 8) breaks[n++] = f;
     }
   }
