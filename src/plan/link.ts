@@ -790,7 +790,7 @@ export interface LinkRunStats {
   propagations: number;
 }
 
-/** One contact to integrate: its index in the run's contacts and its link. */
+/** One contact of a spacecraft: its link context (null: none), data start and whether it keeps its rate pieces. */
 interface Pending {
   contact: Contact;
   /** null: no link for the pair (the contact still counts for the overlaps). */
