@@ -13,6 +13,62 @@ import type { Target } from './types.js';
 /** Node spacing of the link-sampling interpolator, s. */
 export const INTERPOLATION_NODE_STEP_S = 60;
 
+/**
+ * Geocentric distances of the nodes a StateInterpolator propagated, per target: index k for
+ * the node at originMs + k stepMs, |r| of the target's own stateEcefAt there (Math.hypot of
+ * its position), for plan/margin.ts maxGeocentricRadiusKm, whose samples are the same times.
+ * Only states that were found are kept (a node without a state is not).
+ */
+interface NodeRadii {
+  originMs: number;
+  stepMs: number;
+  radiusKm: Float64Array;
+  known: Uint8Array;
+}
+
+const nodeRadii = new WeakMap<Target, NodeRadii>();
+
+/** The target's node distances for this origin and step (new ones replace others). */
+function nodeRadiiFor(target: Target, originMs: number, stepMs: number): NodeRadii {
+  let m = nodeRadii.get(target);
+  if (!m || m.originMs !== originMs || m.stepMs !== stepMs) {
+    m = { originMs, stepMs, radiusKm: new Float64Array(0), known: new Uint8Array(0) };
+    nodeRadii.set(target, m);
+  }
+  return m;
+}
+
+function recordNodeRadius(m: NodeRadii, k: number, state: Float64Array): void {
+  if (!(k >= 0) || k > 1e7) return;
+  if (k >= m.known.length) {
+    const n = Math.max(k + 1, 2 * m.known.length, 1024);
+    const r = new Float64Array(n);
+    r.set(m.radiusKm);
+    const known = new Uint8Array(n);
+    known.set(m.known);
+    m.radiusKm = r;
+    m.known = known;
+  }
+  m.radiusKm[k] = Math.hypot(state[0]!, state[1]!, state[2]!);
+  m.known[k] = 1;
+}
+
+/**
+ * Math.hypot of target.stateEcefAt(tMs)'s position when a StateInterpolator with this origin
+ * and node step found that state at a node (tMs = originMs + k stepMs), else undefined. The
+ * same number the call would give (a state is a function of its time), so it is offered only
+ * while the target has met no propagation failure (failedAtMs: then a call may answer
+ * otherwise than it did).
+ */
+export function knownNodeRadiusKm(target: Target, originMs: number, stepMs: number, tMs: number): number | undefined {
+  if (target.failedAtMs !== undefined) return undefined;
+  const m = nodeRadii.get(target);
+  if (!m || m.originMs !== originMs || m.stepMs !== stepMs) return undefined;
+  const k = (tMs - originMs) / stepMs;
+  if (!Number.isInteger(k) || k < 0 || k >= m.known.length || m.known[k] !== 1) return undefined;
+  return m.radiusKm[k];
+}
+
 export class StateInterpolator {
   private readonly stepMs: number;
   private node = Number.NaN;
@@ -22,6 +78,8 @@ export class StateInterpolator {
   private readonly b = new Float64Array(6);
   /** Propagations made for nodes. */
   propagations = 0;
+  /** Where the nodes' distances are kept (knownNodeRadiusKm), found on the first node. */
+  private radii: NodeRadii | undefined = undefined;
 
   constructor(
     private readonly target: Target,
@@ -42,9 +100,11 @@ export class StateInterpolator {
       } else {
         this.okA = this.target.stateEcefAt(t0, this.a);
         this.propagations++;
+        if (this.okA) recordNodeRadius((this.radii ??= nodeRadiiFor(this.target, this.originMs, this.stepMs)), k, this.a);
       }
       this.okB = this.target.stateEcefAt(t0 + this.stepMs, this.b);
       this.propagations++;
+      if (this.okB) recordNodeRadius((this.radii ??= nodeRadiiFor(this.target, this.originMs, this.stepMs)), k + 1, this.b);
       this.node = k;
     }
     if (!this.okA || !this.okB) return this.target.stateEcefAt(tMs, out);

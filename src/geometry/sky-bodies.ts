@@ -63,6 +63,8 @@ export class SkyBodies {
   private gridPos: Float64Array | undefined;
   private gridSet: Uint8Array | undefined;
   private atMs = Number.NaN;
+  /** The time sunAt last moved the Sun alone to (NaN once at or atGrid moved both). */
+  private sunOnlyMs = Number.NaN;
 
   constructor(span: Span) {
     const stepMs = SKY_SUN_STEP_S * 1000;
@@ -102,6 +104,7 @@ export class SkyBodies {
     const o = 6 * k;
     if (set[k] === 1) {
       this.atMs = tMs;
+      this.sunOnlyMs = Number.NaN;
       for (let i = 0; i < 3; i++) {
         this.sunEcefKm[i] = g[o + i]!;
         this.moonEcefKm[i] = g[o + 3 + i]!;
@@ -120,14 +123,32 @@ export class SkyBodies {
   at(tMs: number): void {
     if (tMs === this.atMs) return;
     this.atMs = tMs;
+    this.sunOnlyMs = Number.NaN;
+    const sidereal = this.sunTo(tMs);
+    this.moon.stateAt(tMs, this.eqj);
+    this.toEcef(sidereal, this.moonEcefKm);
+  }
+
+  /**
+   * Moves the Sun alone to tMs (sunEcefKm: the numbers at(tMs) gives it); the Moon's
+   * position is left stale, so moonEcefKm, angles and farFromBoth need at() first.
+   */
+  sunAt(tMs: number): void {
+    if (tMs === this.atMs || tMs === this.sunOnlyMs) return;
+    this.atMs = Number.NaN;
+    this.sunOnlyMs = tMs;
+    this.sunTo(tMs);
+  }
+
+  /** The Sun's ECEF position at tMs into sunEcefKm; returns the sidereal angle used (rad). */
+  private sunTo(tMs: number): number {
     const sidereal = gmstRadPrecise(tMs) + this.eqd.at(tMs, this.m, this.mDot);
     const x = (tMs - this.t0Ms) / (SKY_SUN_STEP_S * 1000);
     const k = Math.min(this.n - 2, Math.max(0, Math.floor(x)));
     const s = x - k;
     for (let i = 0; i < 3; i++) this.eqj[i] = this.sun[3 * k + i]! + s * (this.sun[3 * k + 3 + i]! - this.sun[3 * k + i]!);
     this.toEcef(sidereal, this.sunEcefKm);
-    this.moon.stateAt(tMs, this.eqj);
-    this.toEcef(sidereal, this.moonEcefKm);
+    return sidereal;
   }
 
   /**

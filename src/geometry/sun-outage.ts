@@ -81,7 +81,7 @@ export class SunOutageSearch {
 
   /** The Sun's elevation at site at tMs, deg. */
   private sunElevationDeg(site: Site, tMs: number): number {
-    this.sky.at(tMs);
+    this.sky.sunAt(tMs);
     const p = this.sky.sunEcefKm;
     const s = site.ecefKm;
     const u = site.up;
@@ -99,9 +99,11 @@ export class SunOutageSearch {
   private clearOf(site: Site, aosMs: number, losMs: number, hpbwDeg: number, maxElevationDeg: number): boolean {
     if (losMs - aosMs > SUN_OUTAGE_PREFILTER_MAX_S * 1000) return false;
     const limitDeg = 0.3 + SUN_OUTAGE_BEAMWIDTHS * hpbwDeg + (SUN_RATE_DEG_S * (losMs - aosMs)) / 2000;
-    const el = [aosMs, 0.5 * (aosMs + losMs), losMs].map((t) => this.sunElevationDeg(site, t));
-    const lo = Math.min(...el);
-    const hi = Math.max(...el);
+    const e0 = this.sunElevationDeg(site, aosMs);
+    const e1 = this.sunElevationDeg(site, 0.5 * (aosMs + losMs));
+    const e2 = this.sunElevationDeg(site, losMs);
+    const lo = Math.min(e0, e1, e2);
+    const hi = Math.max(e0, e1, e2);
     return hi < -limitDeg || lo > maxElevationDeg + limitDeg;
   }
 

@@ -47,7 +47,7 @@ import { gOverTAtSkyDbK, gOverTDbK, impliedSystemNoiseTempK, systemNoiseTempK } 
 import { polarizationMismatchLossDb } from './polarization.js';
 import type { BudgetTerm, LinkSample, PrepareLinkOptions, PreparedLink } from './types.js';
 import { newLinkSample } from './types.js';
-import { BOLTZMANN_EXACT_DBW_PER_K_HZ, linearToDb } from './units.js';
+import { amplitudeToDb, BOLTZMANN_EXACT_DBW_PER_K_HZ, linearToDb, SPEED_OF_LIGHT_M_S } from './units.js';
 import { skyNoiseTemperatureK } from './atmosphere/sky-noise.js';
 
 /**
@@ -270,14 +270,36 @@ export function prepareLink(
   };
 }
 
+/** Free-space loss's constant part (free-space.ts: 20 log10(4 pi / c) + 20 log10(1000), added in its order). */
+const FREE_SPACE_CONSTANT_DB = amplitudeToDb((4 * Math.PI) / SPEED_OF_LIGHT_M_S) + amplitudeToDb(1000);
+/** 20 log10 of the last frequency seen (links of one band share it), dB. */
+let lastFreqHz = Number.NaN;
+let lastFreqDb = Number.NaN;
+
+/**
+ * freeSpaceLossDb(rangeKm, freqHz) with the frequency's term kept from the last call: the
+ * same terms added in the same order, so the same number.
+ */
+function freeSpaceLossSameDb(rangeKm: number, freqHz: number): number {
+  if (!(rangeKm > 0) || !(freqHz > 0)) return freeSpaceLossDb(rangeKm, freqHz); // its ModelRangeError
+  if (freqHz !== lastFreqHz) {
+    lastFreqDb = amplitudeToDb(freqHz);
+    lastFreqHz = freqHz;
+  }
+  return FREE_SPACE_CONSTANT_DB + amplitudeToDb(rangeKm) + lastFreqDb;
+}
+
 /**
  * Evaluate the budget at one look (elevation, range, range rate) into `out`. Allocates
  * nothing. With `full` false the reference columns (Shannon capacity, Doppler) are left
- * as they were: the volume integration needs neither.
+ * as they were: the volume integration needs neither. With `volumeOnly` (the volume
+ * integration, plan/link.ts) an adaptive link's entry in use is not chosen: out.ebN0Db,
+ * out.marginDb, out.modcodIndex and out.rateBps are left as they were (the integration
+ * takes its steps from Es/N0 itself); every other field is as without it.
  */
-export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full = true, bodyTempK = 0): void {
+export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full = true, bodyTempK = 0, volumeOnly = false): void {
   const f = p.frequencyHz;
-  out.freeSpaceLossDb = freeSpaceLossDb(look.rangeKm, f);
+  out.freeSpaceLossDb = freeSpaceLossSameDb(look.rangeKm, f);
 
   // Atmosphere, clamped into the table's elevation range.
   let atmElevationDeg = look.elevationDeg;
@@ -340,6 +362,11 @@ export function evaluateLink(p: PreparedLink, look: Look, out: LinkSample, full 
   } else {
     const esN0Db = cN0DbHz - p.symbolRateDbHz;
     out.esN0Db = esN0Db;
+    if (volumeOnly) {
+      out.closureMarginDb =
+        esN0Db - p.implementationLossDb - p.modcodTable[p.lowestModcodIndex]!.esN0ThresholdDb - p.requiredMarginDb;
+      return;
+    }
     const idx = bestModcod(p.modcodTable, esN0Db - p.implementationLossDb, p.requiredMarginDb);
     const k = idx >= 0 ? idx : p.lowestModcodIndex;
     const entry = p.modcodTable[k]!;

@@ -157,9 +157,9 @@ export function prepareRadioAtStationUnnamed(
   minElevationDeg: number,
   tableCache: Map<string, AtmosphereTable> | undefined,
 ): PreparedLink {
-  const input = atmosphereInputFor(station, radio, settings);
+  const input = memoInputFor(station, radio, settings.availabilityPercent);
   const cached = (inp: AtmosphereStationInput, minEl: number): AtmosphereTable => {
-    const key = `${JSON.stringify(inp)}|${minEl}`;
+    const key = inp === input ? `${input.key}|${minEl}` : `${JSON.stringify(inp)}|${minEl}`;
     let t = tableCache?.get(key);
     if (!t) {
       t = buildAtmosphereTable(inp, minEl);
@@ -172,10 +172,40 @@ export function prepareRadioAtStationUnnamed(
     stationGeocentricRadiusKm: Math.hypot(site.ecefKm[0], site.ecefKm[1], site.ecefKm[2]),
   };
   if (station.receiver?.kind === 'gt') {
-    const { rainRate001MmH: _r, rainHeightKm: _h, cloudLiquidWaterKgM2: _c, ...clear } = input;
+    const { rainRate001MmH: _r, rainHeightKm: _h, cloudLiquidWaterKgM2: _c, key: _k, ...clear } = input;
     opts.clearSkyAtmosphere = cached(clear, Math.min(minElevationDeg, station.receiver.atElevationDeg));
   }
   return prepareLink(radio, station, settings, table, opts);}
+
+/** An atmosphere input with its JSON text (the table caches' key). */
+type KeyedInput = AtmosphereStationInput & { readonly key: string };
+
+/**
+ * atmosphereInputFor's inputs kept per station (by its frequency, polarisation and
+ * availability: all the input depends on besides the station), each with its JSON text:
+ * a fleet's pairs at one station share them instead of making them per pair. The
+ * key is JSON.stringify of the input as atmosphereInputFor makes it.
+ */
+const inputMemo = new WeakMap<Station, Map<string, KeyedInput>>();
+
+function memoInputFor(station: Station, radio: Radio, availabilityPercent: number): KeyedInput {
+  let byRadio = inputMemo.get(station);
+  if (!byRadio) {
+    byRadio = new Map();
+    inputMemo.set(station, byRadio);
+  }
+  const sub = `${radio.frequencyHz}|${JSON.stringify(radio.polarization)}|${availabilityPercent}`;
+  let k = byRadio.get(sub);
+  if (!k) {
+    const input = atmosphereInputFor(station, radio, { availabilityPercent } as LinkSettings);
+    k = Object.defineProperty({ ...input }, 'key', { value: JSON.stringify(input), enumerable: false }) as KeyedInput;
+    byRadio.set(sub, k);
+  }
+  return k;
+}
+
+/** The exceedance levels' inputs of a station and radio with their table key (exceedanceLevelsFor), kept like memoInputFor's. */
+const levelInputsMemo = new WeakMap<Station, Map<string, { inputs: AtmosphereStationInput[]; key: string }>>();
 
 
 /**
@@ -193,13 +223,24 @@ function exceedanceLevelsFor(
   minElevationDeg: number,
   cache: Map<string, ExceedanceLevelsTable>,
 ): ExceedanceLevelsTable {
-  const inputs = EXPECTED_VOLUME_LEVELS.map((level) => {
-    const input = atmosphereInputFor(station, radio, { ...settings, availabilityPercent: 100 - level.exceedancePercent });
-    if (level.rain) return input;
-    const { rainRate001MmH: _r, rainHeightKm: _h, ...dry } = input;
-    return dry;
-  });
-  const key = `${JSON.stringify(inputs)}|${JSON.stringify(station.receiver)}|${settings.availabilityPercent}|${minElevationDeg}`;
+  let byRadio = levelInputsMemo.get(station);
+  if (!byRadio) {
+    byRadio = new Map();
+    levelInputsMemo.set(station, byRadio);
+  }
+  const sub = `${radio.frequencyHz}|${JSON.stringify(radio.polarization)}|${settings.availabilityPercent}|${minElevationDeg}`;
+  let memo = byRadio.get(sub);
+  if (!memo) {
+    const inputs = EXPECTED_VOLUME_LEVELS.map((level) => {
+      const input = atmosphereInputFor(station, radio, { ...settings, availabilityPercent: 100 - level.exceedancePercent });
+      if (level.rain) return input;
+      const { rainRate001MmH: _r, rainHeightKm: _h, ...dry } = input;
+      return dry;
+    });
+    memo = { inputs, key: `${JSON.stringify(inputs)}|${JSON.stringify(station.receiver)}|${settings.availabilityPercent}|${minElevationDeg}` };
+    byRadio.set(sub, memo);
+  }
+  const { inputs, key } = memo;
   let t = cache.get(key);
   if (!t) {
     const look = newLook();
@@ -311,82 +352,196 @@ function rateModelOf(link: PreparedLink): RateModel {
   };
 }
 
-/** Running sums of one contact while its samples come in. */
-interface Accumulator {
-  contact: Contact;
+/** What every contact of one link shares, made once per link and run. */
+interface LinkContext {
   link: PreparedLink;
   model: RateModel;
   site: Site;
-  dataStartMs: number;
-  dataEndMs: number;
-  /** Time, closing quantity and elevation of the last sample inside the data span. */
-  lastMs: number;
-  lastQ: number;
-  lastElevationDeg: number;
-  volumeBits: number;
-  closedS: number;
-  worstMarginDb: number;
-  worstAtMs: number;
-  worstElevationDeg: number;
-  peakRateBps: number;
-  /**
-   * Seconds per MODCOD table index (fixed coding: index 0), named only at the end:
-   * modcodTimeS[modcodBase + index], one buffer shared by every contact of the run.
-   */
-  modcodTimeS: Float64Array;
-  modcodBase: number;
-  samples: number;
-  binStartMs: number;
-  /** Volume per 15-min bin (fractional while integrating). */
-  bins: number[];
-  /**
-   * The rate step function as [startMs, endMs, rateBps] triplets (rate > 0 only, adjacent
-   * pieces of one rate merged), kept only for contacts that overlap another contact of
-   * the same spacecraft: the unique-volume rule (unique-volume.ts) needs it there.
-   */
-  pieces: number[] | undefined;
-  /** The expected volume's running sums, when the link carries exceedance levels. */
-  expected: ExpectedAccumulator | undefined;
-  /** SkyBodies.farFromBoth limits beyond which the Sun and the Moon add nothing to this beam (bodyNoiseFar). */
+  /** SkyBodies.farFromBoth limits beyond which the Sun and the Moon add nothing to this beam (farLimits). */
   cosSunFar: number;
   cosMoonFar: number;
+  /** The expected volume's exceedance levels, when the link carries them. */
+  levels: ExceedanceLevelsTable | undefined;
+  /** Names of the MODCOD table's indices 0 .. modcodCount - 1 (modcodNameAt). */
+  modcodNames: string[];
+  modcodCount: number;
 }
 
-/** Per contact: the closing quantity at each exceedance level and each level's volume. */
-interface ExpectedAccumulator {
-  table: ExceedanceLevelsTable;
-  weights: Float64Array;
-  /** Closing quantity per level at the last sample, and at the current one (swapped after each sample). */
-  lastQ: Float64Array;
-  q: Float64Array;
-  /** The rate step in force at those samples (stepAt), per level. */
-  lastStep: Int32Array;
-  step: Int32Array;
-  /** Volume per level, bits (fractional). */
-  levelBits: Float64Array;
-  /** Expected volume per 15-min bin (same bins as the volume). */
-  bins: number[];
-  /** Expected-rate pieces, kept where the volume's rate pieces are (Accumulator.pieces). */
-  pieces: number[] | undefined;
+function linkContextOf(link: PreparedLink, site: Site): LinkContext {
+  const modcodCount = Math.max(1, link.modcodTable.length);
+  const modcodNames: string[] = [];
+  for (let i = 0; i < modcodCount; i++) modcodNames.push(modcodNameAt(link, i));
+  const far = farLimits(link, site);
+  return {
+    link,
+    model: rateModelOf(link),
+    site,
+    cosSunFar: far.cosSunFar,
+    cosMoonFar: far.cosMoonFar,
+    levels: link.exceedanceLevels,
+    modcodNames,
+    modcodCount,
+  };
 }
 
 const LEVEL_WEIGHTS = expectationWeights(EXPECTED_VOLUME_LEVELS);
 /** Closing-quantity shift per level at one sample (reused). */
 const levelShiftDb = new Float64Array(EXPECTED_VOLUME_LEVELS.length);
 
-function newExpectedAccumulator(table: ExceedanceLevelsTable, keepPieces: boolean): ExpectedAccumulator {
-  const n = table.levels;
-  return {
-    table,
-    weights: LEVEL_WEIGHTS,
-    lastQ: new Float64Array(n),
-    q: new Float64Array(n),
-    lastStep: new Int32Array(n).fill(-1),
-    step: new Int32Array(n).fill(-1),
-    levelBits: new Float64Array(n),
-    bins: [],
-    pieces: keepPieces ? [] : undefined,
-  };
+/**
+ * Running sums of one contact while its samples come in. Accumulators are pooled: one is
+ * taken when its contact opens (open) and given back when it closes (finish), so a run
+ * allocates only a few, with their scratch arrays, whatever its number of contacts.
+ */
+class Accumulator {
+  contact: Contact | undefined = undefined;
+  ctx: LinkContext | undefined = undefined;
+  link: PreparedLink | undefined = undefined;
+  model: RateModel | undefined = undefined;
+  site: Site | undefined = undefined;
+  aosMs = 0;
+  losMs = 0;
+  dataStartMs = 0;
+  dataEndMs = 0;
+  /** Time, closing quantity and elevation of the last sample inside the data span. */
+  lastMs = -Infinity;
+  lastQ = 0;
+  lastElevationDeg = 0;
+  volumeBits = 0;
+  closedS = 0;
+  worstMarginDb = Infinity;
+  worstAtMs = 0;
+  worstElevationDeg = Number.NaN;
+  peakRateBps = 0;
+  /** Seconds per MODCOD table index (fixed coding: index 0), named only at the end. */
+  modcodTimeS: Float64Array;
+  samples = 0;
+  binStartMs = 0;
+  /** Volume per 15-min bin (fractional while integrating): bins[0 .. binCount - 1], zero beyond. */
+  bins = new Float64Array(16);
+  binCount = 0;
+  /**
+   * The rate step function as [startMs, endMs, rateBps] triplets (rate > 0 only, adjacent
+   * pieces of one rate merged), kept only for contacts that overlap another contact of
+   * the same spacecraft: the unique-volume rule (unique-volume.ts) needs it there.
+   */
+  pieces: number[] | undefined = undefined;
+  /** The expected volume's running sums, when the link carries exceedance levels (levels !== undefined). */
+  levels: ExceedanceLevelsTable | undefined = undefined;
+  levelCount = 0;
+  /** Closing quantity per level at the last sample, and at the current one (swapped after each sample). */
+  lastLevelQ: Float64Array;
+  levelQ: Float64Array;
+  /** The rate step in force at those samples (stepAt), per level. */
+  lastLevelStep: Int32Array;
+  levelStep: Int32Array;
+  /** Volume per level, bits (fractional). */
+  levelBits: Float64Array;
+  /** Expected volume per 15-min bin (same bins as the volume): expectedBins[0 .. expectedBinCount - 1]. */
+  expectedBins = new Float64Array(16);
+  expectedBinCount = 0;
+  /** Expected-rate pieces, kept where the volume's rate pieces are. */
+  expectedPieces: number[] | undefined = undefined;
+  /** SkyBodies.farFromBoth limits (LinkContext). */
+  cosSunFar = -2;
+  cosMoonFar = -2;
+
+  constructor(modcodStride: number, levelCapacity: number) {
+    this.modcodTimeS = new Float64Array(modcodStride);
+    this.lastLevelQ = new Float64Array(levelCapacity);
+    this.levelQ = new Float64Array(levelCapacity);
+    this.lastLevelStep = new Int32Array(levelCapacity).fill(-1);
+    this.levelStep = new Int32Array(levelCapacity).fill(-1);
+    this.levelBits = new Float64Array(levelCapacity);
+  }
+
+  /** Starts the sums of contact c (the accumulator is clean: new, or given back by finish). */
+  open(c: Contact, ctx: LinkContext, dataStartMs: number, keepPieces: boolean): void {
+    this.contact = c;
+    this.ctx = ctx;
+    this.link = ctx.link;
+    this.model = ctx.model;
+    this.site = ctx.site;
+    this.aosMs = c.aosMs;
+    this.losMs = c.losMs;
+    this.dataStartMs = dataStartMs;
+    this.dataEndMs = c.losMs;
+    this.lastMs = -Infinity;
+    this.lastQ = 0;
+    this.lastElevationDeg = 0;
+    this.volumeBits = 0;
+    this.closedS = 0;
+    this.worstMarginDb = Infinity;
+    this.worstAtMs = c.aosMs;
+    this.worstElevationDeg = Number.NaN;
+    this.peakRateBps = 0;
+    if (this.modcodTimeS.length < ctx.modcodCount) this.modcodTimeS = new Float64Array(ctx.modcodCount);
+    this.samples = 0;
+    this.binStartMs = Math.floor(c.aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS;
+    this.pieces = keepPieces ? [] : undefined;
+    const t = ctx.levels;
+    this.levels = t;
+    this.expectedPieces = undefined;
+    if (t !== undefined) {
+      const n = t.levels;
+      if (this.levelBits.length < n) {
+        this.lastLevelQ = new Float64Array(n);
+        this.levelQ = new Float64Array(n);
+        this.lastLevelStep = new Int32Array(n).fill(-1);
+        this.levelStep = new Int32Array(n).fill(-1);
+        this.levelBits = new Float64Array(n);
+      }
+      this.levelCount = n;
+      if (keepPieces) this.expectedPieces = [];
+    } else this.levelCount = 0;
+    this.cosSunFar = ctx.cosSunFar;
+    this.cosMoonFar = ctx.cosMoonFar;
+  }
+
+  /** Clears the sums for the next contact (finish calls it). */
+  release(): void {
+    this.modcodTimeS.fill(0);
+    this.bins.fill(0, 0, this.binCount);
+    this.binCount = 0;
+    this.expectedBins.fill(0, 0, this.expectedBinCount);
+    this.expectedBinCount = 0;
+    const n = this.levelCount;
+    this.lastLevelQ.fill(0, 0, n);
+    this.levelQ.fill(0, 0, n);
+    this.lastLevelStep.fill(-1, 0, n);
+    this.levelStep.fill(-1, 0, n);
+    this.levelBits.fill(0, 0, n);
+    this.contact = undefined;
+    this.ctx = undefined;
+    this.link = undefined;
+    this.model = undefined;
+    this.site = undefined;
+    this.pieces = undefined;
+    this.levels = undefined;
+    this.expectedPieces = undefined;
+  }
+}
+
+/** Adds dv to bin `bin` of the volume's bins, growing them as needed. */
+function addToBin(acc: Accumulator, bin: number, dv: number): void {
+  if (bin >= acc.bins.length) {
+    const grown = new Float64Array(Math.max(bin + 1, 2 * acc.bins.length));
+    grown.set(acc.bins);
+    acc.bins = grown;
+  }
+  if (bin >= acc.binCount) acc.binCount = bin + 1;
+  acc.bins[bin]! += dv;
+}
+
+/** Adds ev to bin `bin` of the expected volume's bins, growing them as needed. */
+function addToExpectedBin(acc: Accumulator, bin: number, ev: number): void {
+  if (bin >= acc.expectedBins.length) {
+    const grown = new Float64Array(Math.max(bin + 1, 2 * acc.expectedBins.length));
+    grown.set(acc.expectedBins);
+    acc.expectedBins = grown;
+  }
+  if (bin >= acc.expectedBinCount) acc.expectedBinCount = bin + 1;
+  acc.expectedBins[bin]! += ev;
 }
 
 function modcodNameAt(link: PreparedLink, index: number): string {
@@ -404,14 +559,20 @@ const breaks = new Float64Array(256);
  * the linear interpolation of q (smooth over a step of seconds).
  */
 function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number, t1: number, q1: number, el1: number): void {
-  const m = acc.model;
+  const m = acc.model!;
   const thr = m.stairs.thresholdsDb;
   let n = 0;
   breaks[n++] = 0;
   const dq = q1 - q0;
   if (dq !== 0) {
+    // only a threshold strictly between q0 and q1 can give 0 < f < 1 (rounding is monotone:
+    // one at or beyond either end gives f <= 0 or f >= 1), so the others are not divided
+    const lo = dq > 0 ? q0 : q1;
+    const hi = dq > 0 ? q1 : q0;
     for (let k = 0; k < thr.length; k++) {
-      const f = ((thr[k] as number) - q0) / dq;
+      const tk = thr[k] as number;
+      if (!(tk > lo && tk < hi)) continue;
+      const f = (tk - q0) / dq;
       if (f > 0 && f < 1 && n < breaks.length - 8) breaks[n++] = f;
     }
   }
@@ -436,6 +597,8 @@ function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number,
     }
     breaks[j + 1] = v;
   }
+  const modcod = acc.modcodTimeS;
+  const index = m.stairs.index;
   for (let i = 0; i + 1 < n; i++) {
     const fa = breaks[i] as number;
     const fb = breaks[i + 1] as number;
@@ -449,10 +612,9 @@ function integrateSegment(acc: Accumulator, t0: number, q0: number, el0: number,
     const dv = rate * dtS;
     acc.volumeBits += dv;
     const bin = Math.floor((t0 + fm * span - acc.binStartMs) / VOLUME_BIN_MS);
-    while (acc.bins.length <= bin) acc.bins.push(0);
-    acc.bins[bin]! += dv;
+    addToBin(acc, bin, dv);
     acc.closedS += dtS;
-    acc.modcodTimeS[acc.modcodBase + (m.stairs.index[step] as number)]! += dtS;
+    modcod[index[step] as number]! += dtS;
     if (rate > acc.peakRateBps) acc.peakRateBps = rate;
     const pc = acc.pieces;
     if (pc !== undefined && rate > 0) {
@@ -488,13 +650,21 @@ function meanRateBps(m: RateModel, qa: number, qb: number, sa = stepAt(m.stairs,
   return sum / (hi - lo);
 }
 
+/** True when q lies on step st of thresholds thr (thr[st] <= q < thr[st + 1]): stepAt(q) === st exactly. */
+function onStep(thr: Float64Array, st: number, q: number): boolean {
+  return (st < 0 || (thr[st] as number) <= q) && (st + 1 >= thr.length || q < (thr[st + 1] as number));
+}
+
 /**
  * The expected volume's part of integrateSegment: each level's closing quantity linear in
  * time between the two samples like the volume's, cut at the minimum data elevation and
- * at bin edges; each level's step function integrated exactly (meanRateBps).
+ * at bin edges; each level's step function integrated exactly (meanRateBps). A level whose
+ * two samples sit on one step gives that step's rate over a whole segment at once, and
+ * over a piece of it once both ends of the piece are checked on that step (onStep: the
+ * steps meanRateBps would find).
  */
-function integrateLevels(acc: Accumulator, e: ExpectedAccumulator, t0: number, el0: number, t1: number, el1: number): void {
-  const m = acc.model;
+function integrateLevels(acc: Accumulator, t0: number, el0: number, t1: number, el1: number): void {
+  const m = acc.model!;
   let n = 0;
   levelBreaks[n++] = 0;
   const del = el1 - el0;
@@ -517,8 +687,15 @@ function integrateLevels(acc: Accumulator, e: ExpectedAccumulator, t0: number, e
     }
     levelBreaks[j + 1] = v;
   }
-  const qa = e.lastQ;
-  const qb = e.q;
+  const qa = acc.lastLevelQ;
+  const qb = acc.levelQ;
+  const sa = acc.lastLevelStep;
+  const sb = acc.levelStep;
+  const bits = acc.levelBits;
+  const weights = LEVEL_WEIGHTS;
+  const rates = m.rateBps;
+  const thr = m.stairs.thresholdsDb;
+  const levels = acc.levelCount;
   const whole = n === 2; // one piece: its ends are the samples, whose steps are known
   for (let i = 0; i + 1 < n; i++) {
     const fa = levelBreaks[i] as number;
@@ -528,18 +705,26 @@ function integrateLevels(acc: Accumulator, e: ExpectedAccumulator, t0: number, e
     if (el0 + del * fm < m.minDataElevationDeg) continue;
     const dtS = ((fb - fa) * span) / 1000;
     let ev = 0;
-    for (let k = 0; k < qa.length; k++) {
+    for (let k = 0; k < levels; k++) {
       const q0 = qa[k] as number;
       const dq = (qb[k] as number) - q0;
-      const dv =
-        (whole ? meanRateBps(m, q0, q0 + dq, e.lastStep[k] as number, e.step[k] as number) : meanRateBps(m, q0 + dq * fa, q0 + dq * fb)) * dtS;
-      e.levelBits[k]! += dv;
-      ev += (e.weights[k] as number) * dv;
+      const s0 = sa[k] as number;
+      let rate: number;
+      if (whole) {
+        const s1 = sb[k] as number;
+        rate = s0 === s1 ? (s0 < 0 ? 0 : (rates[s0] as number)) : meanRateBps(m, q0, q0 + dq, s0, s1);
+      } else {
+        const qx = q0 + dq * fa;
+        const qy = q0 + dq * fb;
+        rate = s0 === (sb[k] as number) && onStep(thr, s0, qx) && onStep(thr, s0, qy) ? (s0 < 0 ? 0 : (rates[s0] as number)) : meanRateBps(m, qx, qy);
+      }
+      const dv = rate * dtS;
+      bits[k]! += dv;
+      ev += (weights[k] as number) * dv;
     }
     const bin = Math.floor((t0 + fm * span - acc.binStartMs) / VOLUME_BIN_MS);
-    while (e.bins.length <= bin) e.bins.push(0);
-    e.bins[bin]! += ev;
-    const pc = e.pieces;
+    addToExpectedBin(acc, bin, ev);
+    const pc = acc.expectedPieces;
     if (pc !== undefined && ev > 0) {
       const rate = ev / dtS;
       const a = t0 + fa * span;
@@ -560,35 +745,40 @@ function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): vo
     acc.worstElevationDeg = look.elevationDeg;
   }
   if (tMs < acc.dataStartMs || tMs > acc.dataEndMs) return;
-  const q = acc.model.adaptive ? s.esN0Db - acc.model.qOffsetDb : s.marginDb;
-  const e = acc.expected;
-  if (e !== undefined) {
+  const model = acc.model!;
+  const q = model.adaptive ? s.esN0Db - model.qOffsetDb : s.marginDb;
+  const table = acc.levels;
+  if (table !== undefined) {
     let el = look.elevationDeg;
-    if (el < e.table.minElevationDeg) el = e.table.minElevationDeg;
+    if (el < table.minElevationDeg) el = table.minElevationDeg;
     if (el > 90) el = 90;
-    e.table.valuesAt(el, levelShiftDb);
-    const thr = acc.model.stairs.thresholdsDb;
-    for (let k = 0; k < e.q.length; k++) {
+    table.valuesAt(el, levelShiftDb);
+    const thr = model.stairs.thresholdsDb;
+    const top = thr.length;
+    const qs = acc.levelQ;
+    const last = acc.lastLevelStep;
+    const steps = acc.levelStep;
+    for (let k = 0; k < acc.levelCount; k++) {
       const qk = q + (levelShiftDb[k] as number);
-      e.q[k] = qk;
+      qs[k] = qk;
       // stepAt, walked from the last sample's step (q moves little between samples)
-      let st = e.lastStep[k] as number;
-      while (st + 1 < thr.length && (thr[st + 1] as number) <= qk) st++;
+      let st = last[k] as number;
+      while (st + 1 < top && (thr[st + 1] as number) <= qk) st++;
       while (st >= 0 && (thr[st] as number) > qk) st--;
-      e.step[k] = st;
+      steps[k] = st;
     }
   }
   if (acc.lastMs >= acc.dataStartMs && tMs > acc.lastMs) {
     integrateSegment(acc, acc.lastMs, acc.lastQ, acc.lastElevationDeg, tMs, q, look.elevationDeg);
-    if (e !== undefined) integrateLevels(acc, e, acc.lastMs, acc.lastElevationDeg, tMs, look.elevationDeg);
+    if (table !== undefined) integrateLevels(acc, acc.lastMs, acc.lastElevationDeg, tMs, look.elevationDeg);
   }
-  if (e !== undefined) {
-    const t = e.lastQ;
-    e.lastQ = e.q;
-    e.q = t;
-    const u = e.lastStep;
-    e.lastStep = e.step;
-    e.step = u;
+  if (table !== undefined) {
+    const t = acc.lastLevelQ;
+    acc.lastLevelQ = acc.levelQ;
+    acc.levelQ = t;
+    const u = acc.lastLevelStep;
+    acc.lastLevelStep = acc.levelStep;
+    acc.levelStep = u;
   }
   acc.lastMs = tMs;
   acc.lastQ = q;
@@ -598,6 +788,15 @@ function addSample(acc: Accumulator, tMs: number, look: Look, s: LinkSample): vo
 export interface LinkRunStats {
   linkSamples: number;
   propagations: number;
+}
+
+/** One contact of a spacecraft: its link context (null: none), data start and whether it keeps its rate pieces. */
+interface Pending {
+  contact: Contact;
+  /** null: no link for the pair (the contact still counts for the overlaps). */
+  ctx: LinkContext | null;
+  dataStartMs: number;
+  keepPieces: boolean;
 }
 
 /**
@@ -623,121 +822,146 @@ export function integrateContacts(
   const stats: LinkRunStats = { linkSamples: 0, propagations: 0 };
   const acqMs = settings.acquisitionTimeS * 1000;
 
-  const bySpacecraft = new Map<string, Accumulator[]>();
-  const models = new Map<PreparedLink, RateModel>();
   let modcodStride = 1;
   for (const l of setup.links.values()) modcodStride = Math.max(modcodStride, l.modcodTable.length);
-  const modcodBuffer = new Float64Array(contacts.length * modcodStride);
-  const context = overlapContext ?? contacts;
-  const overlapping = new Set([...contactsOverlappingOwnSpacecraft(context)].map((i) => context[i]!));
-  for (let ci = 0; ci < contacts.length; ci++) {
-    const c = contacts[ci]!;
-    const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
-    if (!link) continue;
-    const site = geometry.sites[siteIndex.get(c.stationId) ?? -1];
-    if (!site) continue;
-    const dataStartMs = Math.min(c.aosMs + acqMs, c.losMs);
-    let model = models.get(link);
-    if (!model) {
-      model = rateModelOf(link);
-      models.set(link, model);
+  const levelCapacity = EXPECTED_VOLUME_LEVELS.length;
+  const pool: Accumulator[] = [];
+  const take = (): Accumulator => pool.pop() ?? new Accumulator(modcodStride, levelCapacity);
+
+  // the links' shared parts, by spacecraft and station (made on a pair's first contact)
+  const contexts = new Map<string, Map<string, LinkContext | null>>();
+  const contextOf = (c: Contact): LinkContext | null => {
+    let bySt = contexts.get(c.spacecraftId);
+    if (!bySt) {
+      bySt = new Map();
+      contexts.set(c.spacecraftId, bySt);
     }
-    const acc: Accumulator = {
-      contact: c,
-      link,
-      model,
-      site,
-      dataStartMs,
-      dataEndMs: c.losMs,
-      lastMs: -Infinity,
-      lastQ: 0,
-      lastElevationDeg: 0,
-      volumeBits: 0,
-      closedS: 0,
-      worstMarginDb: Infinity,
-      worstAtMs: c.aosMs,
-      worstElevationDeg: Number.NaN,
-      peakRateBps: 0,
-      modcodTimeS: modcodBuffer,
-      modcodBase: ci * modcodStride,
-      samples: 0,
-      binStartMs: Math.floor(c.aosMs / VOLUME_BIN_MS) * VOLUME_BIN_MS,
-      bins: [],
-      pieces: overlapping.has(c) ? [] : undefined,
-      expected: link.exceedanceLevels ? newExpectedAccumulator(link.exceedanceLevels, overlapping.has(c)) : undefined,
-      ...farLimits(link, site),
-    };
-    const list = bySpacecraft.get(c.spacecraftId) ?? [];
-    list.push(acc);
-    bySpacecraft.set(c.spacecraftId, list);
+    let ctx = bySt.get(c.stationId);
+    if (ctx === undefined) {
+      const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
+      const site = link ? geometry.sites[siteIndex.get(c.stationId) ?? -1] : undefined;
+      ctx = link && site ? linkContextOf(link, site) : null;
+      bySt.set(c.stationId, ctx);
+    }
+    return ctx;
+  };
+  const pendingOf = (c: Contact, ctx: LinkContext | null, keepPieces: boolean): Pending => ({
+    contact: c,
+    ctx,
+    dataStartMs: Math.min(c.aosMs + acqMs, c.losMs),
+    keepPieces,
+  });
+  // every contact by spacecraft, in AOS order (stable), then those with a link
+  const bySpacecraft = new Map<string, Pending[]>();
+  const group = (p: Pending): void => {
+    const list = bySpacecraft.get(p.contact.spacecraftId);
+    if (list) list.push(p);
+    else bySpacecraft.set(p.contact.spacecraftId, [p]);
+  };
+  if (overlapContext === undefined || overlapContext === contacts) {
+    // which contacts overlap another of their spacecraft (they keep their rate pieces):
+    // contactsOverlappingOwnSpacecraft's clusters, over the same lists sorted by AOS
+    for (const c of contacts) group(pendingOf(c, contextOf(c), false));
+    for (const list of bySpacecraft.values()) {
+      list.sort((a, b) => a.contact.aosMs - b.contact.aosMs);
+      let reachMs = -Infinity;
+      let first = 0;
+      const close = (end: number) => {
+        if (end - first > 1) for (let j = first; j < end; j++) list[j]!.keepPieces = true;
+      };
+      for (let i = 0; i < list.length; i++) {
+        const c = list[i]!.contact;
+        if (!(c.aosMs < reachMs)) {
+          close(i);
+          first = i;
+        }
+        if (c.losMs > reachMs) reachMs = c.losMs;
+      }
+      close(list.length);
+    }
+  } else {
+    const overlapIdx = contactsOverlappingOwnSpacecraft(overlapContext);
+    const set = new Set<Contact>();
+    for (const i of overlapIdx) set.add(overlapContext[i]!);
+    for (const c of contacts) group(pendingOf(c, contextOf(c), set.has(c)));
+    for (const list of bySpacecraft.values()) list.sort((a, b) => a.contact.aosMs - b.contact.aosMs);
   }
 
-  for (const [scId, accs] of bySpacecraft) {
+  const evalAt = (acc: Accumulator, interp: StateInterpolator, tMs: number): void => {
+    if (!interp.stateAt(tMs, state)) return;
+    lookFrom(acc.site!, state, look);
+    sky.at(tMs);
+    evaluateLink(acc.link!, look, sample, false, sampleBodyTempK(acc, sky, state, look, angles), true);
+    stats.linkSamples++;
+    addSample(acc, tMs, look, sample);
+  };
+  const close = (acc: Accumulator): void => {
+    finish(acc);
+    acc.release();
+    pool.push(acc);
+  };
+
+  for (const [scId, all] of bySpacecraft) {
     const target = geometry.targets.get(scId);
     if (!target) continue;
-    const interp = new StateInterpolator(target, geometry.span.startMs);
     // Events in time order: each contact's AOS, its data start, grid times, its LOS.
-    accs.sort((a, b) => a.contact.aosMs - b.contact.aosMs);
-    const evalAt = (acc: Accumulator, tMs: number) => {
-      if (!interp.stateAt(tMs, state)) return;
-      lookFrom(acc.site, state, look);
-      sky.at(tMs);
-      evaluateLink(acc.link, look, sample, false, sampleBodyTempK(acc, sky, state, look, angles));
-      stats.linkSamples++;
-      addSample(acc, tMs, look, sample);
-    };
+    const list = all.filter((p) => p.ctx !== null);
+    if (list.length === 0) continue;
+    const interp = new StateInterpolator(target, geometry.span.startMs);
     const active: Accumulator[] = [];
     let next = 0;
     // grid index range covering all contacts of this spacecraft
     const t0 = geometry.span.startMs;
-    let k = Math.ceil((accs[0]!.contact.aosMs - t0) / stepMs);
+    let k = Math.ceil((list[0]!.contact.aosMs - t0) / stepMs);
     let lastLos = -Infinity;
-    for (const a of accs) lastLos = Math.max(lastLos, a.contact.losMs);
+    for (const p of list) lastLos = Math.max(lastLos, p.contact.losMs);
     const kEnd = Math.floor((lastLos - t0) / stepMs);
     for (; k <= kEnd + 1; k++) {
       const tMs = k <= kEnd ? t0 + k * stepMs : Infinity;
       // open contacts whose AOS comes before this grid time
-      while (next < accs.length && accs[next]!.contact.aosMs <= tMs) {
-        const acc = accs[next++]!;
-        evalAt(acc, acc.contact.aosMs);
-        if (acc.dataStartMs > acc.contact.aosMs) evalAt(acc, acc.dataStartMs);
+      while (next < list.length && list[next]!.contact.aosMs <= tMs) {
+        const p = list[next++]!;
+        const acc = take();
+        acc.open(p.contact, p.ctx!, p.dataStartMs, p.keepPieces);
+        evalAt(acc, interp, acc.aosMs);
+        if (acc.dataStartMs > acc.aosMs) evalAt(acc, interp, acc.dataStartMs);
         active.push(acc);
       }
       // close contacts whose LOS comes before this grid time
       for (let i = active.length - 1; i >= 0; i--) {
         const acc = active[i]!;
-        if (acc.contact.losMs < tMs) {
-          if (acc.lastMs < acc.contact.losMs) evalAt(acc, acc.contact.losMs);
-          finish(acc);
+        if (acc.losMs < tMs) {
+          if (acc.lastMs < acc.losMs) evalAt(acc, interp, acc.losMs);
+          close(acc);
           active.splice(i, 1);
         }
       }
       if (tMs === Infinity) break;
       if (active.length === 0) {
-        if (next >= accs.length) break;
+        if (next >= list.length) break;
         // jump to the grid point just before the next AOS
-        k = Math.max(k, Math.ceil((accs[next]!.contact.aosMs - t0) / stepMs) - 1);
+        k = Math.max(k, Math.ceil((list[next]!.contact.aosMs - t0) / stepMs) - 1);
         continue;
       }
       if (!interp.stateAt(tMs, state)) continue;
       sky.atGrid(t0, stepMs, k, tMs);
-      for (const acc of active) {
-        if (tMs <= acc.contact.aosMs || tMs >= acc.contact.losMs) continue;
-        lookFrom(acc.site, state, look);
-        evaluateLink(acc.link, look, sample, false, sampleBodyTempK(acc, sky, state, look, angles));
+      for (let i = 0; i < active.length; i++) {
+        const acc = active[i]!;
+        if (tMs <= acc.aosMs || tMs >= acc.losMs) continue;
+        lookFrom(acc.site!, state, look);
+        evaluateLink(acc.link!, look, sample, false, sampleBodyTempK(acc, sky, state, look, angles), true);
         stats.linkSamples++;
         addSample(acc, tMs, look, sample);
       }
     }
     for (const acc of active) {
-      if (acc.lastMs < acc.contact.losMs) evalAt(acc, acc.contact.losMs);
-      finish(acc);
+      if (acc.lastMs < acc.losMs) evalAt(acc, interp, acc.losMs);
+      close(acc);
     }
     stats.propagations += interp.propagations;
   }
   return stats;
 }
-
 /**
  * Indices of the contacts in a cluster of overlapping windows of one spacecraft (a chain
  * of windows each starting before the ones before it have all ended), size 2 or more.
@@ -819,21 +1043,40 @@ export function wholeBitBins(bins: readonly number[]): { bins: number[]; totalBi
   return { bins: out, totalBits: prevRounded };
 }
 
+/** wholeBitBins of bins[0 .. n - 1] (the same running sum and rounding); the total in wholeTotalBits. */
+let wholeTotalBits = 0;
+function wholeBitBinsOf(bins: Float64Array, n: number): number[] {
+  const out: number[] = [];
+  let cum = 0;
+  let prevRounded = 0;
+  for (let i = 0; i < n; i++) {
+    cum += bins[i] as number;
+    const r = Math.round(cum);
+    out.push(r - prevRounded);
+    prevRounded = r;
+  }
+  wholeTotalBits = prevRounded;
+  return out;
+}
+
 function modcodTimes(acc: Accumulator): Record<string, number> {
   const out: Record<string, number> = {};
-  const n = Math.max(1, acc.link.modcodTable.length);
+  const ctx = acc.ctx!;
+  const n = ctx.modcodCount;
+  const names = ctx.modcodNames;
+  const times = acc.modcodTimeS;
   for (let i = 0; i < n; i++) {
-    const seconds = acc.modcodTimeS[acc.modcodBase + i] as number;
-    if (seconds > 0) out[modcodNameAt(acc.link, i)] = seconds;
+    const seconds = times[i] as number;
+    if (seconds > 0) out[names[i] as string] = seconds;
   }
   return out;
 }
 
 function finish(acc: Accumulator): void {
-  const whole = wholeBitBins(acc.bins);
+  const bins = wholeBitBinsOf(acc.bins, acc.binCount);
   const link: ContactLink = {
-    radioId: acc.link.radioId,
-    volumeBits: whole.totalBits,
+    radioId: acc.link!.radioId,
+    volumeBits: wholeTotalBits,
     dataStartMs: acc.dataStartMs,
     dataEndMs: acc.dataEndMs,
     closedS: acc.closedS,
@@ -844,18 +1087,17 @@ function finish(acc: Accumulator): void {
     timeInModcodS: modcodTimes(acc),
     samples: acc.samples,
     binStartMs: acc.binStartMs,
-    volumeBinsBits: whole.bins,
+    volumeBinsBits: bins,
   };
   if (acc.pieces !== undefined) link.ratePieces = acc.pieces;
-  const e = acc.expected;
-  if (e !== undefined) {
-    const expected = wholeBitBins(e.bins);
-    link.expectedVolumeBits = expected.totalBits;
-    link.expectedVolumeBinsBits = expected.bins;
-    link.expectedVolumeBoundBits = expectedValueBound(EXPECTED_VOLUME_LEVELS, e.levelBits);
-    if (e.pieces !== undefined) link.expectedRatePieces = e.pieces;
+  if (acc.levels !== undefined) {
+    const expectedBins = wholeBitBinsOf(acc.expectedBins, acc.expectedBinCount);
+    link.expectedVolumeBits = wholeTotalBits;
+    link.expectedVolumeBinsBits = expectedBins;
+    link.expectedVolumeBoundBits = expectedValueBound(EXPECTED_VOLUME_LEVELS, acc.levelBits);
+    if (acc.expectedPieces !== undefined) link.expectedRatePieces = acc.expectedPieces;
   }
-  acc.contact.link = link;
+  acc.contact!.link = link;
 }
 
 /**
@@ -879,11 +1121,13 @@ function farLimits(link: PreparedLink, site: Site): { cosSunFar: number; cosMoon
  * (where bodyTempK gives 0 too), else bodyTempK.
  */
 function sampleBodyTempK(acc: Accumulator, sky: SkyBodies, state: Float64Array, look: Look, angles: BodyAngles): number {
-  const hpbw = acc.link.rxBeamwidthDeg;
+  const link = acc.link!;
+  const hpbw = link.rxBeamwidthDeg;
   if (!(hpbw > 0)) return 0;
-  const s = acc.site.ecefKm;
+  const site = acc.site!;
+  const s = site.ecefKm;
   if (sky.farFromBoth(state[0]! - s[0], state[1]! - s[1], state[2]! - s[2], look.rangeKm, acc.cosSunFar, acc.cosMoonFar)) return 0;
-  return bodyTempK(acc.link, sky, acc.site, state, angles);
+  return bodyTempK(link, sky, site, state, angles);
 }
 
 /**

@@ -48,6 +48,7 @@
 import { ModelRangeError } from '../errors.js';
 import { lookFrom, newLook } from '../geometry/topocentric.js';
 import { slantRangeKm } from '../geometry/slant.js';
+import { knownNodeRadiusKm } from '../geometry/interpolate.js';
 import type { Look, Site, Target } from '../geometry/types.js';
 import { evaluateLink } from '../link/budget.js';
 import { discAntennaTempK } from '../link/body-noise.js';
@@ -130,7 +131,8 @@ export function maxGeocentricRadiusKm(target: Target, span: Span, sampleS = MAX_
   let bestMs = Number.NaN;
   let best = -Infinity;
   for (let tMs = span.startMs; tMs <= span.endMs; tMs += stepMs) {
-    const r = radius(tMs);
+    // a sample the link stage's interpolator already propagated gives the same distance (geometry/interpolate.ts)
+    const r = knownNodeRadiusKm(target, span.startMs, stepMs, tMs) ?? radius(tMs);
     if (r > best) {
       best = r;
       bestMs = tMs;
@@ -184,12 +186,14 @@ export function marginAtElevation(
   look: Look,
   out: LinkSample,
   lunar = false,
+  /** Also the reference columns (Shannon capacity, Doppler): evaluateLink's `full`. */
+  full = true,
 ): number {
   look.azimuthDeg = 0;
   look.elevationDeg = elevationDeg;
   look.rangeKm = slantRangeAtElevationKm(stationRadiusKm, targetRadiusKm, elevationDeg);
   look.rangeRateKmS = 0;
-  evaluateLink(link, look, out, true, lunar ? worstMoonTempK(link, look.rangeKm) : 0);
+  evaluateLink(link, look, out, full, lunar ? worstMoonTempK(link, look.rangeKm) : 0);
   return out.closureMarginDb;
 }
 
@@ -206,7 +210,7 @@ export function worstMoonTempK(link: PreparedLink, rangeKm: number): number {
 export function usableMaskDeg(link: PreparedLink, stationRadiusKm: number, targetRadiusKm: number, toleranceDeg = USABLE_TOLERANCE_DEG, lunar = false): number | null {
   const look = newLook();
   const s = newLinkSample();
-  const closes = (e: number) => marginAtElevation(link, stationRadiusKm, targetRadiusKm, e, look, s, lunar) >= 0;
+  const closes = (e: number) => marginAtElevation(link, stationRadiusKm, targetRadiusKm, e, look, s, lunar, false) >= 0;
   if (!closes(90)) return null;
   let hi = 90;
   for (let k = 1; ; k++) {

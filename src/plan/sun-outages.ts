@@ -11,16 +11,32 @@ import { discAntennaTempK } from '../link/body-noise.js';
 import type { Geometry } from './contacts.js';
 import { linkKey, type LinkSetup } from './link.js';
 import type { Contact, SunOutage } from './types.js';
+import type { PreparedLink } from '../link/types.js';
+import type { Site } from '../geometry/types.js';
 
 export function findSunOutages(contacts: readonly Contact[], geometry: Geometry, setup: LinkSetup): SunOutage[] {
   const out: SunOutage[] = [];
   const siteOf = new Map(geometry.sites.map((s) => [s.stationId, s]));
   const searches = new Map<string, SunOutageSearch>();
+  // each pair's link and site, found on its first contact (by spacecraft, then station)
+  const pairs = new Map<string, Map<string, { link: PreparedLink; site: Site } | null>>();
   for (const c of contacts) {
-    const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
+    let bySt = pairs.get(c.spacecraftId);
+    if (!bySt) {
+      bySt = new Map();
+      pairs.set(c.spacecraftId, bySt);
+    }
+    let pair = bySt.get(c.stationId);
+    if (pair === undefined) {
+      const link = setup.links.get(linkKey(c.spacecraftId, c.stationId));
+      const site = siteOf.get(c.stationId);
+      pair = link && site ? { link, site } : null;
+      bySt.set(c.stationId, pair);
+    }
+    if (pair === null) continue;
+    const { link, site } = pair;
     const target = geometry.targets.get(c.spacecraftId);
-    const site = siteOf.get(c.stationId);
-    if (!link || !target || !site || !(link.rxBeamwidthDeg > 0)) continue;
+    if (!target || !(link.rxBeamwidthDeg > 0)) continue;
     let search = searches.get(c.spacecraftId);
     if (!search) {
       search = new SunOutageSearch(target, geometry.sky);

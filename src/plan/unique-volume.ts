@@ -23,7 +23,6 @@
  * the weather (stations' weather is not modelled jointly).
  * Pure: no I/O.
  */
-import { wholeBitBins } from './link.js';
 import { VOLUME_BIN_MS, type Contact } from './types.js';
 
 export interface UniqueVolume {
@@ -48,9 +47,13 @@ const expectedOf = (c: Contact): number => c.link?.expectedVolumeBits ?? c.link?
 
 /**
  * Integral of max over contacts of their rate pieces (or, with expected, their expected-rate
- * pieces), into absolute 15-min bins (fractional bits).
+ * pieces), into absolute 15-min bins (fractional bits): binKeys[0 .. n - 1] ascending with
+ * their bits in binBits, n returned. The elementary intervals come in time order, so each
+ * bin's bits are summed in that order from 0, as a running sum per bin would.
  */
-function maxRateBins(cluster: readonly Contact[], expected = false): Map<number, number> {
+let binKeys = new Float64Array(64);
+let binBits = new Float64Array(64);
+function maxRateBins(cluster: readonly Contact[], expected = false): number {
   const lists: number[][] = [];
   let count = 0;
   let minMs = Infinity;
@@ -69,8 +72,7 @@ function maxRateBins(cluster: readonly Contact[], expected = false): Map<number,
     }
     count += (2 * p.length) / 3;
   }
-  const bins = new Map<number, number>();
-  if (count === 0) return bins;
+  if (count === 0) return 0;
   // every piece's ends and every 15-minute boundary inside, in one sorted list
   const first = Math.floor(minMs / VOLUME_BIN_MS) * VOLUME_BIN_MS;
   let boundaries = 0;
@@ -86,6 +88,9 @@ function maxRateBins(cluster: readonly Contact[], expected = false): Map<number,
   for (let e = first + VOLUME_BIN_MS; e < maxMs; e += VOLUME_BIN_MS) edges[n++] = e;
   edges.sort();
   const ptr = new Int32Array(lists.length);
+  let nBins = 0;
+  let curBin = Number.NaN;
+  let curBits = 0;
   for (let k = 0; k + 1 < edges.length; k++) {
     const a = edges[k]!;
     const b = edges[k + 1]!;
@@ -101,30 +106,54 @@ function maxRateBins(cluster: readonly Contact[], expected = false): Map<number,
     }
     if (best <= 0) continue;
     const bin = Math.floor(mid / VOLUME_BIN_MS) * VOLUME_BIN_MS;
-    bins.set(bin, (bins.get(bin) ?? 0) + (best * (b - a)) / 1000);
+    if (bin !== curBin) {
+      if (nBins > 0) binBits[nBins - 1] = curBits;
+      if (nBins === binKeys.length) {
+        const keys = new Float64Array(2 * nBins);
+        keys.set(binKeys);
+        binKeys = keys;
+        const bits = new Float64Array(2 * nBins);
+        bits.set(binBits);
+        binBits = bits;
+      }
+      binKeys[nBins++] = bin;
+      curBin = bin;
+      curBits = 0;
+    }
+    curBits = curBits + (best * (b - a)) / 1000;
   }
-  return bins;
+  if (nBins > 0) binBits[nBins - 1] = curBits;
+  return nBins;
 }
 
 function addBins(into: Map<number, number>, binStartMs: number, bins: readonly number[]): void {
-  bins.forEach((bits, i) => {
-    if (bits === 0) return;
+  for (let i = 0; i < bins.length; i++) {
+    const bits = bins[i]!;
+    if (bits === 0) continue;
     const t = binStartMs + i * VOLUME_BIN_MS;
     into.set(t, (into.get(t) ?? 0) + bits);
-  });
+  }
 }
 
-/** Whole bits of a cluster's fractional bins added into `into`, capped by the cluster's station-sum; returns their total. */
-function onceInto(into: Map<number, number>, frac: Map<number, number>, stationSumBits: number): number {
-  const keys = [...frac.keys()].sort((a, b) => a - b);
-  const whole = wholeBitBins(keys.map((k) => frac.get(k)!));
+/** Whole bits of a cluster's fractional bins (binKeys / binBits, n of them) added into `into`, capped by the cluster's station-sum; returns their total. */
+function onceInto(into: Map<number, number>, n: number, stationSumBits: number): number {
+  // wholeBitBins of the bins in time order, inline
+  let cum = 0;
+  let prevRounded = 0;
   let total = 0;
-  keys.forEach((k, n) => {
+  for (let k = 0; k < n; k++) {
+    cum += binBits[k]!;
+    const r = Math.round(cum);
+    const wholeBits = r - prevRounded;
+    prevRounded = r;
     // cap by the station-sum (rounding of whole bits could otherwise add a bit)
-    const bits = Math.min(whole.bins[n]!, stationSumBits - total);
+    const bits = Math.min(wholeBits, stationSumBits - total);
     total += bits;
-    if (bits !== 0) into.set(k, (into.get(k) ?? 0) + bits);
-  });
+    if (bits !== 0) {
+      const key = binKeys[k]!;
+      into.set(key, (into.get(key) ?? 0) + bits);
+    }
+  }
   return total;
 }
 

@@ -48,6 +48,19 @@ function gridCoordinate(elevationDeg: number): number {
   return Math.sqrt(elevationDeg) - Math.sqrt(90 - elevationDeg);
 }
 
+/** The last lookup's elevation and its grid coordinate (a link sample looks up two tables at one elevation). */
+let lastLookupDeg = Number.NaN;
+let lastLookupU = Number.NaN;
+
+/** gridCoordinate, kept from the last lookup when the elevation is the same (the same number). */
+function lookupCoordinate(elevationDeg: number): number {
+  if (elevationDeg !== lastLookupDeg) {
+    lastLookupU = gridCoordinate(elevationDeg);
+    lastLookupDeg = elevationDeg;
+  }
+  return lastLookupU;
+}
+
 /** Inverse of gridCoordinate. */
 function elevationOfGrid(u: number): number {
   const a = (u + Math.sqrt(180 - u * u)) / 2;
@@ -86,19 +99,19 @@ class HermiteGrid {
   readonly minElevationDeg: number;
   protected readonly channels: number;
   private readonly u: Float64Array;
-  private readonly value: Float64Array;
-  private readonly slope: Float64Array;
+  protected readonly value: Float64Array;
+  protected readonly slope: Float64Array;
   private readonly last: number;
   // basis of the last located point (no allocation per lookup)
-  private a = 0;
-  private h00 = 0;
-  private h10 = 0;
-  private h01 = 0;
-  private h11 = 0;
+  protected a = 0;
+  protected h00 = 0;
+  protected h10 = 0;
+  protected h01 = 0;
+  protected h11 = 0;
   /** The interval of the last lookup, tried first (samples move little): the same interval the search finds. */
   private hint = 0;
 
-  private readonly floor: number;
+  protected readonly floor: number;
 
   constructor(minElevationDeg: number, channels: number, nodes: GridNodes, floorAtZero = true) {
     this.minElevationDeg = minElevationDeg;
@@ -115,7 +128,7 @@ class HermiteGrid {
     if (!(elevationDeg >= this.minElevationDeg && elevationDeg <= 90)) {
       throw new ModelRangeError('atmosphere table', 'elevationDeg', elevationDeg, `${this.minElevationDeg}..90 deg`);
     }
-    const uq = gridCoordinate(elevationDeg);
+    const uq = lookupCoordinate(elevationDeg);
     const u = this.u;
     // largest i with u[i] <= uq, then the interval [i, i + 1]
     let lo = 0;
@@ -177,7 +190,21 @@ class InterpolatedExceedanceLevels extends HermiteGrid implements ExceedanceLeve
 
   valuesAt(elevationDeg: number, out: Float64Array): void {
     this.locate(elevationDeg);
-    for (let k = 0; k < this.channels; k++) out[k] = this.term(k);
+    // term(k) for every k, with the basis read once
+    const v = this.value;
+    const s = this.slope;
+    const n = this.channels;
+    const h00 = this.h00;
+    const h10 = this.h10;
+    const h01 = this.h01;
+    const h11 = this.h11;
+    const floor = this.floor;
+    let i = this.a;
+    for (let k = 0; k < n; k++, i++) {
+      const j = i + n;
+      const r = h00 * (v[i] as number) + h10 * (s[i] as number) + h01 * (v[j] as number) + h11 * (s[j] as number);
+      out[k] = r > floor ? r : floor;
+    }
   }
 }
 
