@@ -69,7 +69,8 @@ function handleError(err: unknown, io: CliIo): number {
 }
 
 
-if (isEntryModule(import.meta.url)) {
+/** Runs the CLI on process.argv as the program: stop handlers, exit code, a bug's stack in full. */
+export function startCli(): void {
   // Interrupted or a closed stdout: stop now, nothing new written (src/cli/signals.ts).
   installStopHandlers();
   run(process.argv.slice(2)).then(
@@ -83,3 +84,6 @@ if (isEntryModule(import.meta.url)) {
     },
   );
 }
+
+// Run as `node dist/src/cli/main.js` unbundled (tsc's output); the build's bundle starts from cli-bundle-entry.ts.
+if (isEntryModule(import.meta.url)) startCli();

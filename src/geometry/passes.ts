@@ -118,6 +118,15 @@ class PassSearch {
   private readonly memoAz: Float64Array;
   private readonly memoEl: Float64Array;
   private readonly memoRange: Float64Array;
+  /**
+   * lazyLook: the memo's azimuth and range are made when read (lookAt, memoRangeAt) from the
+   * position kept in memoPos, the elevation alone at each evaluation (a constant mask and no
+   * further condition of sight: g needs no azimuth). memoLooked[m]: slot m's azimuth and range are made.
+   */
+  private readonly lazyLook: boolean;
+  private readonly memoPos: Float64Array;
+  private readonly memoLooked: Uint8Array;
+  private readonly lookState = new Float64Array(6);
   /** Slant ranges at AOS, TCA and LOS of each pass (findPassesWithRanges). */
   readonly rangesKm = new Map<Pass, Float64Array>();
   private readonly aosRange: Float64Array;
@@ -181,6 +190,9 @@ class PassSearch {
     this.memoAz = new Float64Array(memoSize);
     this.memoEl = new Float64Array(memoSize);
     this.memoRange = new Float64Array(memoSize);
+    this.lazyLook = !this.sight && masks.every((m) => m.kind === 'constant');
+    this.memoPos = new Float64Array(this.lazyLook ? 3 * memoSize : 0);
+    this.memoLooked = new Uint8Array(memoSize);
     const n = this.nSites;
     this.gNow = new Float64Array(n);
     this.elNow = new Float64Array(n);
@@ -219,17 +231,45 @@ class PassSearch {
       this.memoAz[m] = 0;
       this.memoEl[m] = NO_STATE_G;
       this.memoRange[m] = Number.NaN;
+      this.memoLooked[m] = 1;
       this.lastEl = NO_STATE_G;
       return NO_STATE_G;
     }
     const site = this.sites[this.curSite]!;
+    if (this.lazyLook) {
+      // elevationFrom: the same number as lookFrom's elevation; azimuth and range when read
+      const el = elevationFrom(site, this.refState);
+      this.memoEl[m] = el;
+      this.memoLooked[m] = 0;
+      const p = 3 * m;
+      this.memoPos[p] = this.refState[0]!;
+      this.memoPos[p + 1] = this.refState[1]!;
+      this.memoPos[p + 2] = this.refState[2]!;
+      this.lastEl = el;
+      return el - (this.masks[this.curSite] as PreparedMask & { kind: 'constant' }).elevationDeg;
+    }
     const look = lookFrom(site, this.refState, this.refLook);
     this.memoAz[m] = look.azimuthDeg;
     this.memoEl[m] = look.elevationDeg;
     this.memoRange[m] = look.rangeKm;
+    this.memoLooked[m] = 1;
     this.lastEl = look.elevationDeg;
     const g = look.elevationDeg - maskElevationDeg(this.masks[this.curSite]!, look.azimuthDeg);
     return this.sight ? Math.min(g, this.target.sightMarginDeg!(site.ecefKm)) : g;
+  }
+
+  /** Make memo slot m's azimuth and range from its position (lookFrom's numbers), once. */
+  private completeLook(m: number): void {
+    if (this.memoLooked[m]) return;
+    const s = this.lookState;
+    const p = 3 * m;
+    s[0] = this.memoPos[p]!;
+    s[1] = this.memoPos[p + 1]!;
+    s[2] = this.memoPos[p + 2]!;
+    const look = lookFrom(this.sites[this.memoSite[m]!]!, s, this.refLook);
+    this.memoAz[m] = look.azimuthDeg;
+    this.memoRange[m] = look.rangeKm;
+    this.memoLooked[m] = 1;
   }
 
   /** The memo slot of the current site's evaluation at tMs (the latest), or -1. */
@@ -251,6 +291,7 @@ class PassSearch {
       this.gAt(tMs);
       m = (this.memoN - 1) % this.memoT.length;
     }
+    this.completeLook(m);
     this.refLook.azimuthDeg = this.memoAz[m]!;
     this.refLook.elevationDeg = this.memoEl[m]!;
     this.refLook.rangeKm = this.memoRange[m]!;
@@ -259,7 +300,9 @@ class PassSearch {
   /** Slant range at tMs for the current site if the memo holds that evaluation, else NaN. */
   private memoRangeAt(tMs: number): number {
     const m = this.memoIndex(tMs);
-    return m < 0 ? Number.NaN : this.memoRange[m]!;
+    if (m < 0) return Number.NaN;
+    this.completeLook(m);
+    return this.memoRange[m]!;
   }
 
   /** Visible-side time of the g crossing between (aMs, ga) and (bMs, gb). */

@@ -18,7 +18,7 @@ import { makeLunarOrbitTarget } from '../geometry/targets/lunar-orbit.js';
 import { lightTimeS } from '../geometry/light-time.js';
 import { lookFrom, newLook } from '../geometry/topocentric.js';
 import { SkyBodies } from '../geometry/sky-bodies.js';
-import { DEFAULT_SEARCH, type SearchOptions, type Site, type Target } from '../geometry/types.js';
+import { DEFAULT_SEARCH, type Pass, type SearchOptions, type Site, type Target } from '../geometry/types.js';
 import type { Scenario, Spacecraft, Span } from '../scenario/types.js';
 import { isoUtc } from '../time/format.js';
 import type { Contact, WarningOrigin } from './types.js';
@@ -125,9 +125,7 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
       const siteOf = new Map(geometry.sites.map((s) => [s.stationId, s]));
       const found = findPassesWithRanges(target, geometry.sites, geometry.masks, searchSpan, search);
       const ranges = isSgp4Target(target) ? found.rangesKm : undefined;
-      for (const p of found.passes) {
-        contacts.push({ ...p, durationS: (p.losMs - p.aosMs) / 1000, ...transmitTimes(target, siteOf.get(p.stationId)!, p, ranges?.get(p)) });
-      }
+      for (const p of found.passes) contacts.push(contactOf(p, transmitTimes(target, siteOf.get(p.stationId)!, p, ranges?.get(p))));
     }
     propagations += target.evaluations - before;
     const conjunction = solarConjunctionWarning(target, () => geometry.sky, span);
@@ -144,6 +142,34 @@ export function findContacts(scenario: Scenario, geometry: Geometry, span: Span,
   keyed.sort((a, b) => a.st - b.st || a.c.aosMs - b.c.aosMs || a.sc - b.sc);
   for (let i = 0; i < keyed.length; i++) contacts[i] = keyed[i]!.c;
   return { contacts, warnings, warningOrigins, propagations };
+}
+
+/**
+ * The contact of a window found by the search: its fields, the duration and the transmit
+ * times, in that order. One object literal (not spreads) so that every contact has the same
+ * hidden class and the stages after the search read them at one shape; the keys and values
+ * are those of { ...pass, durationS, ...times } (the search sets every field of a Pass).
+ */
+function contactOf(p: Pass, times: Pick<Contact, 'aosTransmitMs' | 'losTransmitMs' | 'lightTimeS'>): Contact {
+  return {
+    spacecraftId: p.spacecraftId,
+    stationId: p.stationId,
+    aosMs: p.aosMs,
+    losMs: p.losMs,
+    tcaMs: p.tcaMs,
+    maxElevationDeg: p.maxElevationDeg,
+    aosAzimuthDeg: p.aosAzimuthDeg,
+    losAzimuthDeg: p.losAzimuthDeg,
+    aosElevationDeg: p.aosElevationDeg!,
+    losElevationDeg: p.losElevationDeg!,
+    aosClipped: p.aosClipped,
+    losClipped: p.losClipped,
+    losTrackEnded: p.losTrackEnded!,
+    durationS: (p.losMs - p.aosMs) / 1000,
+    aosTransmitMs: times.aosTransmitMs!,
+    losTransmitMs: times.losTransmitMs!,
+    lightTimeS: times.lightTimeS!,
+  };
 }
 
 const ltState = new Float64Array(6);

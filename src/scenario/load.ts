@@ -204,8 +204,34 @@ export const MIN_INSTANT_MS = Date.UTC(1957, 0, 1);
 export const MAX_INSTANT_MS = Date.UTC(2100, 0, 1);
 export const INSTANT_RANGE_TEXT = '1957-01-01 to 2099-12-31';
 
+/** "YYYY-MM-DDTHH:MM:SS[.f...]" with "Z" or no zone: the common form, read without luxon. */
+const PLAIN_UTC_INSTANT_RE = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2}):(\d{2})(?:\.(\d{1,9}))?Z?$/;
+
+/**
+ * parseInstant of a plain UTC instant, or undefined to ask luxon: luxon's own arithmetic for
+ * the milliseconds (floor(parseFloat("0." + fraction) * 1000), luxon 3.7.2 parseMillis) and
+ * Date.UTC on a date and time that are valid as given, inside 1957..2099. It spares a small
+ * run luxon's first call, whose system-locale look-up loads the ICU date data (about 40 ms).
+ */
+function plainUtcInstantMs(text: string): number | undefined {
+  const m = PLAIN_UTC_INSTANT_RE.exec(text);
+  if (m === null) return undefined;
+  const year = Number(m[1]);
+  const month = Number(m[2]);
+  const day = Number(m[3]);
+  const hour = Number(m[4]);
+  const minute = Number(m[5]);
+  const second = Number(m[6]);
+  if (year < 1957 || year > 2099 || month < 1 || month > 12 || day < 1 || hour > 23 || minute > 59 || second > 59) return undefined;
+  if (day > new Date(Date.UTC(year, month, 0)).getUTCDate()) return undefined;
+  const ms = m[7] === undefined ? 0 : Math.floor(parseFloat(`0.${m[7]}`) * 1000);
+  return Date.UTC(year, month - 1, day, hour, minute, second, ms);
+}
+
 /** ISO 8601 instant to epoch ms; a time without a zone is UTC; only 1957..2099. */
 export function parseInstant(text: string): number | undefined {
+  const plain = plainUtcInstantMs(text);
+  if (plain !== undefined) return plain;
   const dt = DateTime.fromISO(text, { zone: 'utc', setZone: true });
   // Real UTC offsets run from -12:00 to +14:00.
   if (!dt.isValid || dt.offset < -12 * 60 || dt.offset > 14 * 60) return undefined;

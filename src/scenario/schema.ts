@@ -287,7 +287,8 @@ export const feedSchema = z
 // ---- end of station feeds
 
 const timeZone = () =>
-  text().refine((v) => IANAZone.isValidZone(v), { message: 'is not an IANA time zone (e.g. "Europe/Oslo", "UTC")' });
+  // "UTC" is valid without asking luxon (whose first zone check loads the ICU date data)
+  text().refine((v) => v === 'UTC' || IANAZone.isValidZone(v), { message: 'is not an IANA time zone (e.g. "Europe/Oslo", "UTC")' });
 
 export const stationSchema = z
   .object({

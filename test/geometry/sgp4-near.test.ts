@@ -8,7 +8,7 @@
  */
 import { sgp4, twoline2satrec } from 'satellite.js';
 import { describe, expect, it } from 'vitest';
-import { sgp4NearEarthInto } from '../../src/geometry/targets/sgp4-near.js';
+import { nearEarthTerms, sgp4NearEarthInto } from '../../src/geometry/targets/sgp4-near.js';
 import { inventedDecayingOrbit, inventedFleet, makeTle, meanMotionForAltitude, type InventedElements } from '../fixtures/orbits.js';
 import { mulberry32 } from '../fixtures/prng.js';
 
@@ -33,13 +33,18 @@ describe('sgp4NearEarthInto', () => {
       if (name === 'low-180') expect(a.isimp).toBe(1);
       const rnd = mulberry32(name.length * 7919);
       const out = new Float64Array(6);
+      // the satrec-only terms made once, as a track does (Sgp4Target), and made on each call
+      const terms = nearEarthTerms(a);
+      const outEach = new Float64Array(6);
       let ok = 0;
       let failed = 0;
       for (let n = 0; n < 3000; n++) {
         const t = (rnd() * 20 - 10) * 1440;
-        const code = sgp4NearEarthInto(a, t, out);
+        const codeEach = sgp4NearEarthInto(a, t, outEach);
+        const code = sgp4NearEarthInto(a, t, out, terms);
         const pv = sgp4(b, t);
         expect(a.error).toBe(b.error);
+        expect(codeEach).toBe(code);
         if (pv === null) {
           expect(code).toBe(b.error);
           failed++;
@@ -48,7 +53,10 @@ describe('sgp4NearEarthInto', () => {
         expect(code).toBe(0);
         const p = pv.position;
         const v = pv.velocity as { x: number; y: number; z: number };
-        [p.x, p.y, p.z, v.x, v.y, v.z].forEach((x, i) => expect(Object.is(out[i], x), `${name} t ${t} [${i}]`).toBe(true));
+        [p.x, p.y, p.z, v.x, v.y, v.z].forEach((x, i) => {
+          expect(Object.is(out[i], x), `${name} t ${t} [${i}]`).toBe(true);
+          expect(Object.is(outEach[i], x), `${name} t ${t} [${i}] (terms made per call)`).toBe(true);
+        });
         ok++;
       }
       expect(ok).toBeGreaterThan(0);

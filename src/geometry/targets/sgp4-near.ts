@@ -49,11 +49,30 @@ const ERR_SEMI_LATUS_RECTUM = 4;
 const ERR_DECAYED = 6;
 
 /**
+ * The terms of satellite.js's near-Earth `sgp4` that depend on the satrec alone, worked out
+ * once per element set by the very expressions `sgp4` evaluates on every call (so the same
+ * numbers): (xke / no)^(2/3) and the sine and cosine of the inclination.
+ */
+export interface NearEarthTerms {
+  /** (xke / satrec.no) ** x2o3. */
+  readonly xkeOverNoPowX2o3: number;
+  /** Math.sin(satrec.inclo), Math.cos(satrec.inclo). */
+  readonly sinInclo: number;
+  readonly cosInclo: number;
+}
+
+/** The satrec-only terms of sgp4NearEarthInto for `satrec` (to pass on every call of a track). */
+export function nearEarthTerms(satrec: SatRec): NearEarthTerms {
+  return { xkeOverNoPowX2o3: (xke / satrec.no) ** x2o3, sinInclo: Math.sin(satrec.inclo), cosInclo: Math.cos(satrec.inclo) };
+}
+
+/**
  * Propagate a near-Earth satrec (method 'n') to tsince minutes from its epoch: TEME position
  * (km) into out[0..2], velocity (km/s) into out[3..5]. Returns 0, or the SGP4 error code
- * (satrec.error is set likewise; out is then left as it was).
+ * (satrec.error is set likewise; out is then left as it was). `terms`: nearEarthTerms(satrec),
+ * made once per satrec by a caller that propagates it often.
  */
-export function sgp4NearEarthInto(satrec: SatRec, tsince: number, out: Float64Array): number {
+export function sgp4NearEarthInto(satrec: SatRec, tsince: number, out: Float64Array, terms: NearEarthTerms = nearEarthTerms(satrec)): number {
   let coseo1 = 0;
   let sineo1 = 0;
   let delm: number;
@@ -103,7 +122,8 @@ export function sgp4NearEarthInto(satrec: SatRec, tsince: number, out: Float64Ar
     satrec.error = ERR_MEAN_MOTION;
     return ERR_MEAN_MOTION;
   }
-  const am = (xke / nm) ** x2o3 * tempa * tempa;
+  // nm is satrec.no here: (xke / nm) ** x2o3 is the satrec's own term
+  const am = terms.xkeOverNoPowX2o3 * tempa * tempa;
   nm = xke / am ** 1.5;
   em -= tempe;
   if (em >= 1.0 || em < -0.001) {
@@ -119,8 +139,9 @@ export function sgp4NearEarthInto(satrec: SatRec, tsince: number, out: Float64Ar
   argpm %= twoPi;
   xlm %= twoPi;
   mm = (xlm - argpm - nodem) % twoPi;
-  const sinim = Math.sin(inclm);
-  const cosim = Math.cos(inclm);
+  // inclm is satrec.inclo: its sine and cosine are the satrec's own terms
+  const sinim = terms.sinInclo;
+  const cosim = terms.cosInclo;
   const ep = em;
   const xincp = inclm;
   const argpp = argpm;

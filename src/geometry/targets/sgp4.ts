@@ -24,7 +24,8 @@ import { ScenarioError } from '../../errors.js';
 import type { ElementSet, OmmElements, Span } from '../../scenario/types.js';
 import { gmstRadAt, JULIAN_DATE_UNIX_EPOCH, temeToEcef } from '../frames.js';
 import type { Target } from '../types.js';
-import { sgp4NearEarthInto } from './sgp4-near.js';
+import { nearEarthTerms, sgp4NearEarthInto, type NearEarthTerms } from './sgp4-near.js';
+import { newDeepSpaceTrack, sgp4DeepSpaceInto, type DeepSpaceTrack } from './sgp4-deep.js';
 
 /** Status of one SGP4 call: 0 ok, otherwise satellite.js SatRecError code (or -1). */
 export const SGP4_OK = 0;
@@ -48,12 +49,16 @@ export function sgp4ErrorText(code: number): string {
 /**
  * The per-minute entry point: propagate `satrec` to `tsinceMin` minutes since its epoch,
  * write the TEME state into outTeme[0..5] (km, km/s) and return the status
- * (SGP4_OK = 0, or the SGP4 error code). Does not go through a Date.
+ * (SGP4_OK = 0, or the SGP4 error code). Does not go through a Date. `terms`: the
+ * satrec's nearEarthTerms (sgp4-near.ts) when the caller keeps them (a track), else made here;
+ * `deep`: a deep-space satrec's DeepSpaceTrack (sgp4-deep.ts) kept by the caller, without
+ * which a deep-space set goes through satellite.js's `sgp4` itself.
  */
-export function propagateTemeMinutes(satrec: SatRec, tsinceMin: number, outTeme: Float64Array): number {
-  if (satrec.method === 'n') {
-    // satellite.js's own arithmetic, without its result objects (sgp4-near.ts)
-    const code = sgp4NearEarthInto(satrec, tsinceMin, outTeme);
+export function propagateTemeMinutes(satrec: SatRec, tsinceMin: number, outTeme: Float64Array, terms?: NearEarthTerms, deep?: DeepSpaceTrack): number {
+  if (satrec.method === 'n' || deep !== undefined) {
+    // satellite.js's own arithmetic, without its result objects (sgp4-near.ts, sgp4-deep.ts)
+    const code =
+      satrec.method === 'n' ? sgp4NearEarthInto(satrec, tsinceMin, outTeme, terms ?? nearEarthTerms(satrec)) : sgp4DeepSpaceInto(satrec, tsinceMin, outTeme, deep!);
     if (code !== SGP4_OK) return code;
     for (let i = 0; i < 6; i++) if (!Number.isFinite(outTeme[i]!)) return SGP4_NON_FINITE;
     return SGP4_OK;
@@ -197,6 +202,10 @@ class Sgp4Target implements Target {
   failedAtMs: number | undefined = undefined;
   failureReason: string | undefined = undefined;
   private readonly satrecs: SatRec[];
+  /** nearEarthTerms of each near-Earth satrec (undefined for deep-space ones), made once. */
+  private readonly terms: (NearEarthTerms | undefined)[];
+  /** The integrator's kept steps of each deep-space satrec (undefined for near-Earth ones). */
+  private readonly deep: (DeepSpaceTrack | undefined)[];
   private readonly sets: ElementSet[];
   private readonly epochsMs: Float64Array;
   /** switchMs[i]: from this time on set i+1 is nearer than set i. */
@@ -210,6 +219,8 @@ class Sgp4Target implements Target {
     this.spacecraftId = spacecraftId;
     this.sets = [...sets].sort((a, b) => a.epochMs - b.epochMs);
     this.satrecs = this.sets.map(satrecFromElementSet);
+    this.terms = this.satrecs.map((r) => (r.method === 'n' ? nearEarthTerms(r) : undefined));
+    this.deep = this.satrecs.map((r) => (r.method === 'd' ? newDeepSpaceTrack() : undefined));
     this.epochsMs = Float64Array.from(this.sets, (s) => s.epochMs);
     this.switchMs = new Float64Array(Math.max(0, this.sets.length - 1));
     for (let i = 0; i + 1 < this.sets.length; i++) {
@@ -238,7 +249,7 @@ class Sgp4Target implements Target {
     while (i < this.switchMs.length && tMs >= this.switchMs[i]!) i++;
     this.current = i;
     this.evaluations++;
-    const code = propagateTemeMinutes(this.satrecs[i]!, (tMs - this.epochsMs[i]!) / 60_000, this.teme);
+    const code = propagateTemeMinutes(this.satrecs[i]!, (tMs - this.epochsMs[i]!) / 60_000, this.teme, this.terms[i], this.deep[i]);
     if (code !== SGP4_OK) {
       if (this.failedAtMs === undefined || tMs < this.failedAtMs) {
         this.failedAtMs = tMs;
