@@ -13,9 +13,9 @@
  * shown as found: no schedule, no booking, no shard file): a view has getters only, so an
  * assignment to it throws instead of being lost. Every number is stored as the float64 it
  * was, so whatever reads a view gets the same values, bit for bit, as from the object.
- * The rate step functions (ContactLink.ratePieces, expectedRatePieces) are left out, as
- * withoutRatePieces does (only the unique volumes read them, and the worker has made
- * those); a contact's other radios (otherLinks) cross as plain objects, being rare.
+ * The rate step functions (ContactLink.ratePieces, expectedRatePieces) are left out: only
+ * the unique volumes read them, and the worker has made those. A contact's other radios
+ * (otherLinks) cross as plain objects, being rare.
  */
 import type { Contact, ContactLink } from './types.js';
 

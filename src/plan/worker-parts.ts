@@ -13,7 +13,7 @@ import type { Scenario } from '../scenario/types.js';
 import type { AtmosphereTable } from '../link/atmosphere/types.js';
 import type { Geometry } from './contacts.js';
 import { marginRows, type MarginRow } from './margin.js';
-import type { Contact, ContactLink, PlanResult } from './types.js';
+import type { PlanResult } from './types.js';
 import { uniqueVolumes, type UniqueVolume } from './unique-volume.js';
 
 /** What one worker batch adds: unique volumes of its spacecraft (fleet order), and their margin rows when asked. */
@@ -29,30 +29,6 @@ export function batchParts(scenario: Scenario, result: PlanResult, geometry: Geo
     result.contacts,
   );
   return margins ? { unique, margins: marginRows(scenario, result, tables ? { tables } : {}, geometry) } : { unique };
-}
-
-/**
- * The result without the contacts' rate step functions (ContactLink.ratePieces and
- * expectedRatePieces: only the unique volumes read them, and batchParts has made those):
- * often half of what a contact weighs when it crosses to the main thread. New contact and
- * link objects; `result` is left as it is.
- */
-export function withoutRatePieces(result: PlanResult): PlanResult {
-  const slim = (l: ContactLink): ContactLink => {
-    if (l.ratePieces === undefined && l.expectedRatePieces === undefined) return l;
-    const { ratePieces: _r, expectedRatePieces: _e, ...rest } = l;
-    return rest;
-  };
-  return {
-    ...result,
-    contacts: result.contacts.map((c) => {
-      if (!c.link && !c.otherLinks) return c;
-      const out: Contact = { ...c };
-      if (c.link) out.link = slim(c.link);
-      if (c.otherLinks) out.otherLinks = c.otherLinks.map(slim);
-      return out;
-    }),
-  };
 }
 
 /** The figures of a whole plan, gathered from its batches. */

@@ -1,7 +1,7 @@
 // Contacts packed as columns (plan/contact-pack.ts) read back through their views give
 // every field of the contacts they were packed from, bit for bit (Object.is: -0 and NaN
 // too), absent optional fields absent, the MODCOD times in the same key order; the rate
-// step functions are left out as withoutRatePieces leaves them out; a view cannot be
+// step functions are left out; a view cannot be
 // written to. Reference: the contact objects of runPlan on one demo day, and a
 // structured clone of the pack (what crossing threads does to it).
 import { describe, it, expect } from 'vitest';
