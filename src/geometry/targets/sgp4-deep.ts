@@ -45,6 +45,7 @@
  * SOFTWARE.
  */
 import { constants, sgp4, type SatRec } from 'satellite.js';
+import { sgp4PeriodicsInto } from './sgp4-near.js';
 
 const { earthRadius, j2, j3oj2, pi, twoPi, vkmpersec, x2o3, xke } = constants;
 
@@ -325,18 +326,14 @@ export function sgp4DeepSpaceInto(satrec: SatRec, tsince: number, out: Float64Ar
     out[5] = v.z;
     return ERR_NONE;
   }
-  let coseo1 = 0;
-  let sineo1 = 0;
   let delm: number;
   let delomg: number;
-  let eo1: number;
   let argpm: number;
   let mm: number;
   let nm: number;
   let nodem: number;
   let t3: number;
   let t4: number;
-  let tem5: number;
   let temp: number;
   let tempa: number;
   let tempe: number;
@@ -426,86 +423,10 @@ export function sgp4DeepSpaceInto(satrec: SatRec, tsince: number, out: Float64Ar
   } else {
     satrec.xlcof = (-0.25 * j3oj2 * sinip * (3.0 + 5.0 * cosip)) / temp4;
   }
-  const axnl = ep * Math.cos(argpp);
-  temp = 1.0 / (am * (1.0 - ep * ep));
-  const aynl = ep * Math.sin(argpp) + temp * satrec.aycof;
-  const xl = mp + argpp + nodep + temp * satrec.xlcof * axnl;
-  // Kepler's equation
-  const u = (xl - nodep) % twoPi;
-  eo1 = u;
-  tem5 = 9999.9;
-  let ktr = 1;
-  while (Math.abs(tem5) >= 1.0e-12 && ktr <= 10) {
-    sineo1 = Math.sin(eo1);
-    coseo1 = Math.cos(eo1);
-    tem5 = 1.0 - coseo1 * axnl - sineo1 * aynl;
-    tem5 = (u - aynl * coseo1 + axnl * sineo1 - eo1) / tem5;
-    if (Math.abs(tem5) >= 0.95) {
-      if (tem5 > 0.0) {
-        tem5 = 0.95;
-      } else {
-        tem5 = -0.95;
-      }
-    }
-    eo1 += tem5;
-    ktr += 1;
-  }
-  // short-period preliminary quantities
-  const ecose = axnl * coseo1 + aynl * sineo1;
-  const esine = axnl * sineo1 - aynl * coseo1;
-  const el2 = axnl * axnl + aynl * aynl;
-  const pl = am * (1.0 - el2);
-  if (pl < 0.0) {
-    satrec.error = ERR_SEMI_LATUS_RECTUM;
-    return ERR_SEMI_LATUS_RECTUM;
-  }
-  const rl = am * (1.0 - ecose);
-  const rdotl = (Math.sqrt(am) * esine) / rl;
-  const rvdotl = Math.sqrt(pl) / rl;
-  const betal = Math.sqrt(1.0 - el2);
-  temp = esine / (1.0 + betal);
-  const sinu = (am / rl) * (sineo1 - aynl - axnl * temp);
-  const cosu = (am / rl) * (coseo1 - axnl + aynl * temp);
-  let su = Math.atan2(sinu, cosu);
-  const sin2u = (cosu + cosu) * sinu;
-  const cos2u = 1.0 - 2.0 * sinu * sinu;
-  temp = 1.0 / pl;
-  const temp1 = 0.5 * j2 * temp;
-  const temp2 = temp1 * temp;
-  // short-period periodics (method 'd')
+  // short-period periodics (method 'd'): the inclination's terms, then the part both paths share
   const cosisq = cosip * cosip;
   satrec.con41 = 3.0 * cosisq - 1.0;
   satrec.x1mth2 = 1.0 - cosisq;
   satrec.x7thm1 = 7.0 * cosisq - 1.0;
-  const mrt = rl * (1.0 - 1.5 * temp2 * betal * satrec.con41) + 0.5 * temp1 * satrec.x1mth2 * cos2u;
-  if (mrt < 1.0) {
-    satrec.error = ERR_DECAYED;
-    return ERR_DECAYED;
-  }
-  su -= 0.25 * temp2 * satrec.x7thm1 * sin2u;
-  const xnode = nodep + 1.5 * temp2 * cosip * sin2u;
-  const xinc = xincp + 1.5 * temp2 * cosip * sinip * cos2u;
-  const mvt = rdotl - (nm * temp1 * satrec.x1mth2 * sin2u) / xke;
-  const rvdot = rvdotl + (nm * temp1 * (satrec.x1mth2 * cos2u + 1.5 * satrec.con41)) / xke;
-  const sinsu = Math.sin(su);
-  const cossu = Math.cos(su);
-  const snod = Math.sin(xnode);
-  const cnod = Math.cos(xnode);
-  const sini = Math.sin(xinc);
-  const cosi = Math.cos(xinc);
-  const xmx = -snod * cosi;
-  const xmy = cnod * cosi;
-  const ux = xmx * sinsu + cnod * cossu;
-  const uy = xmy * sinsu + snod * cossu;
-  const uz = sini * sinsu;
-  const vx = xmx * cossu - cnod * sinsu;
-  const vy = xmy * cossu - snod * sinsu;
-  const vz = sini * cossu;
-  out[0] = mrt * ux * earthRadius;
-  out[1] = mrt * uy * earthRadius;
-  out[2] = mrt * uz * earthRadius;
-  out[3] = (mvt * ux + rvdot * vx) * vkmpersec;
-  out[4] = (mvt * uy + rvdot * vy) * vkmpersec;
-  out[5] = (mvt * uz + rvdot * vz) * vkmpersec;
-  return ERR_NONE;
+  return sgp4PeriodicsInto(satrec, ep, argpp, nodep, mp, xincp, sinip, cosip, am, nm, out);
 }

@@ -73,18 +73,14 @@ export function nearEarthTerms(satrec: SatRec): NearEarthTerms {
  * made once per satrec by a caller that propagates it often.
  */
 export function sgp4NearEarthInto(satrec: SatRec, tsince: number, out: Float64Array, terms: NearEarthTerms = nearEarthTerms(satrec)): number {
-  let coseo1 = 0;
-  let sineo1 = 0;
   let delm: number;
   let delomg: number;
-  let eo1: number;
   let argpm: number;
   let mm: number;
   let nm: number;
   let nodem: number;
   let t3: number;
   let t4: number;
-  let tem5: number;
   let temp: number;
   let tempa: number;
   let tempe: number;
@@ -149,13 +145,37 @@ export function sgp4NearEarthInto(satrec: SatRec, tsince: number, out: Float64Ar
   const mp = mm;
   const sinip = sinim;
   const cosip = cosim;
+  return sgp4PeriodicsInto(satrec, ep, argpp, nodep, mp, xincp, sinip, cosip, am, nm, out);
+}
+
+/**
+ * The end of satellite.js's `sgp4` that its near-Earth and deep-space paths share, from
+ * the long-period terms on: Kepler's equation, the short-period periodics and the TEME
+ * state into out[0..5] (km, km/s). The caller has set satrec.aycof, xlcof, con41, x1mth2
+ * and x7thm1 for the inclination xincp (sinip, cosip). Returns the SatRecError code.
+ */
+export function sgp4PeriodicsInto(
+  satrec: SatRec,
+  ep: number,
+  argpp: number,
+  nodep: number,
+  mp: number,
+  xincp: number,
+  sinip: number,
+  cosip: number,
+  am: number,
+  nm: number,
+  out: Float64Array,
+): number {
   const axnl = ep * Math.cos(argpp);
-  temp = 1.0 / (am * (1.0 - ep * ep));
+  let temp = 1.0 / (am * (1.0 - ep * ep));
   const aynl = ep * Math.sin(argpp) + temp * satrec.aycof;
   const xl = mp + argpp + nodep + temp * satrec.xlcof * axnl;
   const u = (xl - nodep) % twoPi;
-  eo1 = u;
-  tem5 = 9999.9;
+  let eo1 = u;
+  let tem5 = 9999.9;
+  let sineo1 = 0;
+  let coseo1 = 0;
   let ktr = 1;
   while (Math.abs(tem5) >= 1.0e-12 && ktr <= 10) {
     sineo1 = Math.sin(eo1);
