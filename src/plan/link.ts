@@ -522,24 +522,24 @@ class Accumulator {
   }
 }
 
+/** `bins` itself, or a copy of it twice as long (at least bin + 1) when bin lies beyond it. */
+function binsHolding(bins: Float64Array<ArrayBuffer>, bin: number): Float64Array<ArrayBuffer> {
+  if (bin < bins.length) return bins;
+  const grown = new Float64Array(Math.max(bin + 1, 2 * bins.length));
+  grown.set(bins);
+  return grown;
+}
+
 /** Adds dv to bin `bin` of the volume's bins, growing them as needed. */
 function addToBin(acc: Accumulator, bin: number, dv: number): void {
-  if (bin >= acc.bins.length) {
-    const grown = new Float64Array(Math.max(bin + 1, 2 * acc.bins.length));
-    grown.set(acc.bins);
-    acc.bins = grown;
-  }
+  acc.bins = binsHolding(acc.bins, bin);
   if (bin >= acc.binCount) acc.binCount = bin + 1;
   acc.bins[bin]! += dv;
 }
 
 /** Adds ev to bin `bin` of the expected volume's bins, growing them as needed. */
 function addToExpectedBin(acc: Accumulator, bin: number, ev: number): void {
-  if (bin >= acc.expectedBins.length) {
-    const grown = new Float64Array(Math.max(bin + 1, 2 * acc.expectedBins.length));
-    grown.set(acc.expectedBins);
-    acc.expectedBins = grown;
-  }
+  acc.expectedBins = binsHolding(acc.expectedBins, bin);
   if (bin >= acc.expectedBinCount) acc.expectedBinCount = bin + 1;
   acc.expectedBins[bin]! += ev;
 }
