@@ -45,7 +45,7 @@
  * SOFTWARE.
  */
 import { constants, sgp4, type SatRec } from 'satellite.js';
-import { sgp4PeriodicsInto } from './sgp4-near.js';
+import { secular, sgp4PeriodicsInto, sgp4SecularInto } from './sgp4-near.js';
 
 const { earthRadius, j2, j3oj2, pi, twoPi, vkmpersec, x2o3, xke } = constants;
 
@@ -326,45 +326,21 @@ export function sgp4DeepSpaceInto(satrec: SatRec, tsince: number, out: Float64Ar
     out[5] = v.z;
     return ERR_NONE;
   }
-  let delm: number;
-  let delomg: number;
   let argpm: number;
   let mm: number;
   let nm: number;
   let nodem: number;
-  let t3: number;
-  let t4: number;
-  let temp: number;
   let tempa: number;
   let tempe: number;
   let templ: number;
   const temp4 = 1.5e-12;
-  satrec.t = tsince;
-  satrec.error = ERR_NONE;
-  const xmdf = satrec.mo + satrec.mdot * satrec.t;
-  const argpdf = satrec.argpo + satrec.argpdot * satrec.t;
-  const nodedf = satrec.nodeo + satrec.nodedot * satrec.t;
-  argpm = argpdf;
-  mm = xmdf;
-  const t2 = satrec.t * satrec.t;
-  nodem = nodedf + satrec.nodecf * t2;
-  tempa = 1.0 - satrec.cc1 * satrec.t;
-  tempe = satrec.bstar * satrec.cc4 * satrec.t;
-  templ = satrec.t2cof * t2;
-  if (satrec.isimp !== 1) {
-    delomg = satrec.omgcof * satrec.t;
-    const delmtemp = 1.0 + satrec.eta * Math.cos(xmdf);
-    delm = satrec.xmcof * (delmtemp * delmtemp * delmtemp - satrec.delmo);
-    temp = delomg + delm;
-    mm = xmdf + temp;
-    argpm = argpdf - temp;
-    t3 = t2 * satrec.t;
-    t4 = t3 * satrec.t;
-    tempa = tempa - satrec.d2 * t2 - satrec.d3 * t3 - satrec.d4 * t4;
-    tempe += satrec.bstar * satrec.cc5 * (Math.sin(mm) - satrec.sinmao);
-    templ = templ + satrec.t3cof * t3 + t4 * (satrec.t4cof + satrec.t * satrec.t5cof);
-  }
-  satrec.tempa = tempa;
+  sgp4SecularInto(satrec, tsince, secular);
+  argpm = secular[0]!;
+  mm = secular[1]!;
+  nodem = secular[2]!;
+  tempa = secular[3]!;
+  tempe = secular[4]!;
+  templ = secular[5]!;
   nm = satrec.no;
   let em = satrec.ecco;
   let inclm = satrec.inclo;

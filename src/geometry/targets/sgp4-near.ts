@@ -73,44 +73,20 @@ export function nearEarthTerms(satrec: SatRec): NearEarthTerms {
  * made once per satrec by a caller that propagates it often.
  */
 export function sgp4NearEarthInto(satrec: SatRec, tsince: number, out: Float64Array, terms: NearEarthTerms = nearEarthTerms(satrec)): number {
-  let delm: number;
-  let delomg: number;
   let argpm: number;
   let mm: number;
   let nm: number;
   let nodem: number;
-  let t3: number;
-  let t4: number;
-  let temp: number;
   let tempa: number;
   let tempe: number;
   let templ: number;
-  satrec.t = tsince;
-  satrec.error = ERR_NONE;
-  const xmdf = satrec.mo + satrec.mdot * satrec.t;
-  const argpdf = satrec.argpo + satrec.argpdot * satrec.t;
-  const nodedf = satrec.nodeo + satrec.nodedot * satrec.t;
-  argpm = argpdf;
-  mm = xmdf;
-  const t2 = satrec.t * satrec.t;
-  nodem = nodedf + satrec.nodecf * t2;
-  tempa = 1.0 - satrec.cc1 * satrec.t;
-  tempe = satrec.bstar * satrec.cc4 * satrec.t;
-  templ = satrec.t2cof * t2;
-  if (satrec.isimp !== 1) {
-    delomg = satrec.omgcof * satrec.t;
-    const delmtemp = 1.0 + satrec.eta * Math.cos(xmdf);
-    delm = satrec.xmcof * (delmtemp * delmtemp * delmtemp - satrec.delmo);
-    temp = delomg + delm;
-    mm = xmdf + temp;
-    argpm = argpdf - temp;
-    t3 = t2 * satrec.t;
-    t4 = t3 * satrec.t;
-    tempa = tempa - satrec.d2 * t2 - satrec.d3 * t3 - satrec.d4 * t4;
-    tempe += satrec.bstar * satrec.cc5 * (Math.sin(mm) - satrec.sinmao);
-    templ = templ + satrec.t3cof * t3 + t4 * (satrec.t4cof + satrec.t * satrec.t5cof);
-  }
-  satrec.tempa = tempa;
+  sgp4SecularInto(satrec, tsince, secular);
+  argpm = secular[0]!;
+  mm = secular[1]!;
+  nodem = secular[2]!;
+  tempa = secular[3]!;
+  tempe = secular[4]!;
+  templ = secular[5]!;
   nm = satrec.no;
   let em = satrec.ecco;
   const inclm = satrec.inclo;
@@ -146,6 +122,55 @@ export function sgp4NearEarthInto(satrec: SatRec, tsince: number, out: Float64Ar
   const sinip = sinim;
   const cosip = cosim;
   return sgp4PeriodicsInto(satrec, ep, argpp, nodep, mp, xincp, sinip, cosip, am, nm, out);
+}
+
+/** Scratch of sgp4SecularInto for the two propagators (one thread runs one at a time). */
+export const secular = new Float64Array(6);
+
+/**
+ * The start of satellite.js's `sgp4` that its near-Earth and deep-space paths share: sets
+ * satrec.t, satrec.error and satrec.tempa, and writes the secular gravity and drag terms at
+ * tsince minutes into out: argpm, mm, nodem, tempa, tempe, templ.
+ */
+export function sgp4SecularInto(satrec: SatRec, tsince: number, out: Float64Array): void {
+  let argpm: number;
+  let mm: number;
+  let nodem: number;
+  let tempa: number;
+  let tempe: number;
+  let templ: number;
+  satrec.t = tsince;
+  satrec.error = ERR_NONE;
+  const xmdf = satrec.mo + satrec.mdot * satrec.t;
+  const argpdf = satrec.argpo + satrec.argpdot * satrec.t;
+  const nodedf = satrec.nodeo + satrec.nodedot * satrec.t;
+  argpm = argpdf;
+  mm = xmdf;
+  const t2 = satrec.t * satrec.t;
+  nodem = nodedf + satrec.nodecf * t2;
+  tempa = 1.0 - satrec.cc1 * satrec.t;
+  tempe = satrec.bstar * satrec.cc4 * satrec.t;
+  templ = satrec.t2cof * t2;
+  if (satrec.isimp !== 1) {
+    const delomg = satrec.omgcof * satrec.t;
+    const delmtemp = 1.0 + satrec.eta * Math.cos(xmdf);
+    const delm = satrec.xmcof * (delmtemp * delmtemp * delmtemp - satrec.delmo);
+    const temp = delomg + delm;
+    mm = xmdf + temp;
+    argpm = argpdf - temp;
+    const t3 = t2 * satrec.t;
+    const t4 = t3 * satrec.t;
+    tempa = tempa - satrec.d2 * t2 - satrec.d3 * t3 - satrec.d4 * t4;
+    tempe += satrec.bstar * satrec.cc5 * (Math.sin(mm) - satrec.sinmao);
+    templ = templ + satrec.t3cof * t3 + t4 * (satrec.t4cof + satrec.t * satrec.t5cof);
+  }
+  satrec.tempa = tempa;
+  out[0] = argpm;
+  out[1] = mm;
+  out[2] = nodem;
+  out[3] = tempa;
+  out[4] = tempe;
+  out[5] = templ;
 }
 
 /**
