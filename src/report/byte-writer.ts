@@ -12,7 +12,7 @@
  * test/report/byte-writer.test.ts checks each against its string function on a million
  * values or more.
  */
-import { formatDuration, isoUtc } from '../time/format.js';
+import { clockOfDay, formatDuration, isoUtc, type ClockParts } from '../time/format.js';
 import { roundedText } from './contact-text.js';
 
 const DAY_MS = 86_400_000;
@@ -411,7 +411,7 @@ const grown = (a: Int32Array): Int32Array => {
 };
 
 /** The parts of a whole-ms UTC time (time/format.ts isoMs's arithmetic), the day's text cached. */
-const part = { h: 0, m: 0, s: 0, milli: 0 };
+const part: ClockParts = { h: 0, m: 0, s: 0, milli: 0 };
 let cachedDay = Number.NaN;
 const dayText = new Uint8Array(11);
 
@@ -423,15 +423,6 @@ function splitMs(ms: number): boolean {
     const t = new Date(day * DAY_MS).toISOString();
     for (let i = 0; i < 11; i++) dayText[i] = t.charCodeAt(i);
   }
-  let r = ms - day * DAY_MS;
-  const h = Math.floor(r / 3_600_000);
-  r -= h * 3_600_000;
-  const m = Math.floor(r / 60_000);
-  r -= m * 60_000;
-  const sec = Math.floor(r / 1000);
-  part.h = h;
-  part.m = m;
-  part.s = sec;
-  part.milli = r - sec * 1000;
+  clockOfDay(ms - day * DAY_MS, part);
   return true;
 }

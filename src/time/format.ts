@@ -12,6 +12,30 @@ let cachedDayText = '';
 
 const two = (v: number): string => (v < 10 ? `0${v}` : `${v}`);
 
+/** Hours, minutes, seconds and milliseconds of a time of day. */
+export interface ClockParts {
+  h: number;
+  m: number;
+  s: number;
+  milli: number;
+}
+
+const clock: ClockParts = { h: 0, m: 0, s: 0, milli: 0 };
+
+/** Splits `msOfDay` (whole ms since midnight, 0 <= msOfDay < 86,400,000) into out. */
+export function clockOfDay(msOfDay: number, out: ClockParts): void {
+  let r = msOfDay;
+  const h = Math.floor(r / 3_600_000);
+  r -= h * 3_600_000;
+  const m = Math.floor(r / 60_000);
+  r -= m * 60_000;
+  const sec = Math.floor(r / 1000);
+  out.h = h;
+  out.m = m;
+  out.s = sec;
+  out.milli = r - sec * 1000;
+}
+
 /** Date.prototype.toISOString of whole ms, its "YYYY-MM-DDT" part cached per day (years 1970..9999). */
 function isoMs(ms: number): string {
   const day = Math.floor(ms / DAY_MS);
@@ -20,14 +44,9 @@ function isoMs(ms: number): string {
     cachedDay = day;
     cachedDayText = new Date(day * DAY_MS).toISOString().slice(0, 11);
   }
-  let r = ms - day * DAY_MS;
-  const h = Math.floor(r / 3_600_000);
-  r -= h * 3_600_000;
-  const m = Math.floor(r / 60_000);
-  r -= m * 60_000;
-  const sec = Math.floor(r / 1000);
-  const milli = r - sec * 1000;
-  return `${cachedDayText}${two(h)}:${two(m)}:${two(sec)}.${milli < 10 ? '00' : milli < 100 ? '0' : ''}${milli}Z`;
+  clockOfDay(ms - day * DAY_MS, clock);
+  const milli = clock.milli;
+  return `${cachedDayText}${two(clock.h)}:${two(clock.m)}:${two(clock.s)}.${milli < 10 ? '00' : milli < 100 ? '0' : ''}${milli}Z`;
 }
 
 /** ISO 8601 UTC with `decimals` fractional-second digits (0..3). */
