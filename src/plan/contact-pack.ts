@@ -122,6 +122,12 @@ export function packContacts(contacts: readonly Contact[]): ContactPack {
   let b = 0;
   let e = 0;
   let m = 0;
+  /** An optional number into numbers[at]: its flag when present, else 0 (the slot stays NaN). */
+  const optional = (v: number | undefined, flag: number, at: number): number => {
+    if (v === undefined) return 0;
+    numbers[at] = v;
+    return flag;
+  };
   for (let i = 0; i < n; i++) {
     const c = contacts[i]!;
     const o = i * PACK_NUMBERS;
@@ -133,29 +139,14 @@ export function packContacts(contacts: readonly Contact[]): ContactPack {
     numbers[o + AOS_AZ] = c.aosAzimuthDeg;
     numbers[o + LOS_AZ] = c.losAzimuthDeg;
     numbers[o + DURATION] = c.durationS;
-    if (c.aosElevationDeg !== undefined) {
-      f |= HAS_AOS_EL;
-      numbers[o + AOS_EL] = c.aosElevationDeg;
-    }
-    if (c.losElevationDeg !== undefined) {
-      f |= HAS_LOS_EL;
-      numbers[o + LOS_EL] = c.losElevationDeg;
-    }
+    f |= optional(c.aosElevationDeg, HAS_AOS_EL, o + AOS_EL);
+    f |= optional(c.losElevationDeg, HAS_LOS_EL, o + LOS_EL);
     if (c.aosClipped) f |= AOS_CLIPPED;
     if (c.losClipped) f |= LOS_CLIPPED;
     if (c.losTrackEnded !== undefined) f |= HAS_TRACK_ENDED | (c.losTrackEnded ? TRACK_ENDED : 0);
-    if (c.aosTransmitMs !== undefined) {
-      f |= HAS_AOS_TX;
-      numbers[o + AOS_TX] = c.aosTransmitMs;
-    }
-    if (c.losTransmitMs !== undefined) {
-      f |= HAS_LOS_TX;
-      numbers[o + LOS_TX] = c.losTransmitMs;
-    }
-    if (c.lightTimeS !== undefined) {
-      f |= HAS_LIGHT_TIME;
-      numbers[o + LIGHT_TIME] = c.lightTimeS;
-    }
+    f |= optional(c.aosTransmitMs, HAS_AOS_TX, o + AOS_TX);
+    f |= optional(c.losTransmitMs, HAS_LOS_TX, o + LOS_TX);
+    f |= optional(c.lightTimeS, HAS_LIGHT_TIME, o + LIGHT_TIME);
     ids[3 * i] = intern(c.spacecraftId);
     ids[3 * i + 1] = intern(c.stationId);
     const l = c.link;
@@ -173,18 +164,12 @@ export function packContacts(contacts: readonly Contact[]): ContactPack {
       numbers[o + SAMPLES] = l.samples;
       numbers[o + BIN_START] = l.binStartMs;
       for (const v of l.volumeBinsBits) bins[b++] = v;
-      if (l.expectedVolumeBits !== undefined) {
-        f |= HAS_EXPECTED;
-        numbers[o + EXPECTED] = l.expectedVolumeBits;
-      }
+      f |= optional(l.expectedVolumeBits, HAS_EXPECTED, o + EXPECTED);
       if (l.expectedVolumeBinsBits !== undefined) {
         f |= HAS_EXPECTED_BINS;
         for (const v of l.expectedVolumeBinsBits) expectedBins[e++] = v;
       }
-      if (l.expectedVolumeBoundBits !== undefined) {
-        f |= HAS_EXPECTED_BOUND;
-        numbers[o + EXPECTED_BOUND] = l.expectedVolumeBoundBits;
-      }
+      f |= optional(l.expectedVolumeBoundBits, HAS_EXPECTED_BOUND, o + EXPECTED_BOUND);
       for (const name in l.timeInModcodS) {
         modcodName[m] = intern(name);
         modcodS[m] = l.timeInModcodS[name]!;
@@ -230,68 +215,84 @@ export function unpackContacts(pack: ContactPack, shared?: (id: string) => strin
   return out;
 }
 
-const numberAt = (p: PackReader, i: number, k: number): number => p.numbers[i * PACK_NUMBERS + k]!;
-
-/** A contact of a pack (the Contact shape; an optional field it lacks reads as undefined). */
-class PackedContact {
+/** One contact's row of a pack: what its views read (names kept clear of the Contact and ContactLink fields). */
+class PackedRow {
   constructor(
-    private readonly p: PackReader,
-    private readonly i: number,
+    protected readonly p: PackReader,
+    protected readonly i: number,
   ) {}
+  /** Number k of the row. */
+  protected rowNumber(k: number): number {
+    return this.p.numbers[this.i * PACK_NUMBERS + k]!;
+  }
+  /** Number k of the row when the flag says it is there, else undefined. */
+  protected rowOptional(flag: number, k: number): number | undefined {
+    return this.rowFlag(flag) ? this.rowNumber(k) : undefined;
+  }
+  /** Whether the row's flag bit is set. */
+  protected rowFlag(flag: number): boolean {
+    return (this.p.flags[this.i]! & flag) !== 0;
+  }
+  /** String j (0 spacecraft, 1 station, 2 radio) of the row. */
+  protected rowId(j: number): string {
+    return this.p.strings[this.p.ids[3 * this.i + j]!]!;
+  }
+}
+
+class PackedContact extends PackedRow {
   get spacecraftId(): string {
-    return this.p.strings[this.p.ids[3 * this.i]!]!;
+    return this.rowId(0);
   }
   get stationId(): string {
-    return this.p.strings[this.p.ids[3 * this.i + 1]!]!;
+    return this.rowId(1);
   }
   get aosMs(): number {
-    return numberAt(this.p, this.i, AOS);
+    return this.rowNumber(AOS);
   }
   get losMs(): number {
-    return numberAt(this.p, this.i, LOS);
+    return this.rowNumber(LOS);
   }
   get tcaMs(): number {
-    return numberAt(this.p, this.i, TCA);
+    return this.rowNumber(TCA);
   }
   get maxElevationDeg(): number {
-    return numberAt(this.p, this.i, MAX_EL);
+    return this.rowNumber(MAX_EL);
   }
   get aosAzimuthDeg(): number {
-    return numberAt(this.p, this.i, AOS_AZ);
+    return this.rowNumber(AOS_AZ);
   }
   get losAzimuthDeg(): number {
-    return numberAt(this.p, this.i, LOS_AZ);
+    return this.rowNumber(LOS_AZ);
   }
   get aosElevationDeg(): number | undefined {
-    return this.p.flags[this.i]! & HAS_AOS_EL ? numberAt(this.p, this.i, AOS_EL) : undefined;
+    return this.rowOptional(HAS_AOS_EL, AOS_EL);
   }
   get losElevationDeg(): number | undefined {
-    return this.p.flags[this.i]! & HAS_LOS_EL ? numberAt(this.p, this.i, LOS_EL) : undefined;
+    return this.rowOptional(HAS_LOS_EL, LOS_EL);
   }
   get aosClipped(): boolean {
-    return (this.p.flags[this.i]! & AOS_CLIPPED) !== 0;
+    return this.rowFlag(AOS_CLIPPED);
   }
   get losClipped(): boolean {
-    return (this.p.flags[this.i]! & LOS_CLIPPED) !== 0;
+    return this.rowFlag(LOS_CLIPPED);
   }
   get losTrackEnded(): boolean | undefined {
-    const f = this.p.flags[this.i]!;
-    return f & HAS_TRACK_ENDED ? (f & TRACK_ENDED) !== 0 : undefined;
+    return this.rowFlag(HAS_TRACK_ENDED) ? this.rowFlag(TRACK_ENDED) : undefined;
   }
   get durationS(): number {
-    return numberAt(this.p, this.i, DURATION);
+    return this.rowNumber(DURATION);
   }
   get aosTransmitMs(): number | undefined {
-    return this.p.flags[this.i]! & HAS_AOS_TX ? numberAt(this.p, this.i, AOS_TX) : undefined;
+    return this.rowOptional(HAS_AOS_TX, AOS_TX);
   }
   get losTransmitMs(): number | undefined {
-    return this.p.flags[this.i]! & HAS_LOS_TX ? numberAt(this.p, this.i, LOS_TX) : undefined;
+    return this.rowOptional(HAS_LOS_TX, LOS_TX);
   }
   get lightTimeS(): number | undefined {
-    return this.p.flags[this.i]! & HAS_LIGHT_TIME ? numberAt(this.p, this.i, LIGHT_TIME) : undefined;
+    return this.rowOptional(HAS_LIGHT_TIME, LIGHT_TIME);
   }
   get link(): ContactLink | undefined {
-    if (!(this.p.flags[this.i]! & HAS_LINK)) return undefined;
+    if (!this.rowFlag(HAS_LINK)) return undefined;
     return new PackedLink(this.p, this.i) as unknown as ContactLink;
   }
   get otherLinks(): ContactLink[] | undefined {
@@ -300,43 +301,39 @@ class PackedContact {
 }
 
 /** The link of a contact of a pack (the ContactLink shape; no rate step functions). */
-class PackedLink {
-  constructor(
-    private readonly p: PackReader,
-    private readonly i: number,
-  ) {}
+class PackedLink extends PackedRow {
   get radioId(): string {
-    return this.p.strings[this.p.ids[3 * this.i + 2]!]!;
+    return this.rowId(2);
   }
   get volumeBits(): number {
-    return numberAt(this.p, this.i, VOLUME);
+    return this.rowNumber(VOLUME);
   }
   get dataStartMs(): number {
-    return numberAt(this.p, this.i, DATA_START);
+    return this.rowNumber(DATA_START);
   }
   get dataEndMs(): number {
-    return numberAt(this.p, this.i, DATA_END);
+    return this.rowNumber(DATA_END);
   }
   get closedS(): number {
-    return numberAt(this.p, this.i, CLOSED);
+    return this.rowNumber(CLOSED);
   }
   get worstMarginDb(): number {
-    return numberAt(this.p, this.i, WORST_MARGIN);
+    return this.rowNumber(WORST_MARGIN);
   }
   get worstMarginAtMs(): number {
-    return numberAt(this.p, this.i, WORST_AT);
+    return this.rowNumber(WORST_AT);
   }
   get worstMarginElevationDeg(): number {
-    return numberAt(this.p, this.i, WORST_EL);
+    return this.rowNumber(WORST_EL);
   }
   get peakRateBps(): number {
-    return numberAt(this.p, this.i, PEAK_RATE);
+    return this.rowNumber(PEAK_RATE);
   }
   get samples(): number {
-    return numberAt(this.p, this.i, SAMPLES);
+    return this.rowNumber(SAMPLES);
   }
   get binStartMs(): number {
-    return numberAt(this.p, this.i, BIN_START);
+    return this.rowNumber(BIN_START);
   }
   /** A new object on every read (in the order the worker's record had). */
   get timeInModcodS(): Record<string, number> {
@@ -350,14 +347,14 @@ class PackedLink {
     return Array.from(this.p.bins.subarray(this.p.binFrom[this.i]!, this.p.binFrom[this.i + 1]!));
   }
   get expectedVolumeBits(): number | undefined {
-    return this.p.flags[this.i]! & HAS_EXPECTED ? numberAt(this.p, this.i, EXPECTED) : undefined;
+    return this.rowOptional(HAS_EXPECTED, EXPECTED);
   }
   /** A new array on every read. */
   get expectedVolumeBinsBits(): number[] | undefined {
-    if (!(this.p.flags[this.i]! & HAS_EXPECTED_BINS)) return undefined;
+    if (!this.rowFlag(HAS_EXPECTED_BINS)) return undefined;
     return Array.from(this.p.expectedBins.subarray(this.p.expectedFrom[this.i]!, this.p.expectedFrom[this.i + 1]!));
   }
   get expectedVolumeBoundBits(): number | undefined {
-    return this.p.flags[this.i]! & HAS_EXPECTED_BOUND ? numberAt(this.p, this.i, EXPECTED_BOUND) : undefined;
+    return this.rowOptional(HAS_EXPECTED_BOUND, EXPECTED_BOUND);
   }
 }
