@@ -175,10 +175,22 @@ function lazyUids(plan: PlanResult, made?: readonly string[]): () => readonly st
   return () => (uids ??= contactUids(plan));
 }
 
-/** Indices of the plan's contacts ordered by AOS, then plan order. */
-function byAos(plan: PlanResult, indices: number[]): number[] {
-  const c = plan.contacts;
-  return indices.sort((a, b) => c[a]!.aosMs - c[b]!.aosMs || a - b);
+/** Every contact's AOS, read once (a contact's fields may be read through a packed row). */
+function aosOf(plan: PlanResult): Float64Array {
+  const aos = new Float64Array(plan.contacts.length);
+  for (let i = 0; i < aos.length; i++) aos[i] = plan.contacts[i]!.aosMs;
+  return aos;
+}
+
+/**
+ * Indices of the plan's contacts ordered by AOS, then plan order. A list already in that
+ * order (a station's contacts in plan order) is left as it is: what sort does with it too
+ * (one ascending run), without its comparisons.
+ */
+function byAos(aos: Float64Array, indices: number[]): number[] {
+  const cmp = (a: number, b: number): number => aos[a]! - aos[b]! || a - b;
+  for (let k = 1; k < indices.length; k++) if (cmp(indices[k - 1]!, indices[k]!) > 0) return indices.sort(cmp);
+  return indices;
 }
 
 /** One calendar of the given contacts (ordered by AOS, then station, then spacecraft as in the plan). */
@@ -189,7 +201,7 @@ export function renderCalendar(plan: PlanResult, contacts: readonly Contact[], n
     if (i === undefined) throw new Error('renderCalendar: contact is not part of the plan');
     return i;
   });
-  return joinPieces(calendarPieces(plan, byAos(plan, indices), name, lazyUids(plan, uids)));
+  return joinPieces(calendarPieces(plan, byAos(aosOf(plan), indices), name, lazyUids(plan, uids)));
 }
 
 /** File-name-safe form of a station id. */
@@ -202,15 +214,16 @@ export const stationFileName = (stationId: string) => `${uidPart(stationId)}.ics
 export function calendarFiles(plan: PlanResult): { name: string; content: Iterable<string | Uint8Array> }[] {
   const uids = lazyUids(plan);
   const span = `${isoUtc(plan.span.startMs, 0)} .. ${isoUtc(plan.span.endMs, 0)}`;
+  const aos = aosOf(plan);
   const all = byAos(
-    plan,
+    aos,
     plan.contacts.map((_, i) => i),
   );
   const files = [{ name: 'contacts.ics', content: calendarPieces(plan, all, `Contacts, all stations, ${span}`, uids) }];
   const perStation = new Map<string, number[]>(plan.stations.map((st) => [st.id, []]));
   plan.contacts.forEach((c, i) => perStation.get(c.stationId)?.push(i));
   for (const st of plan.stations) {
-    const mine = byAos(plan, perStation.get(st.id) ?? []);
+    const mine = byAos(aos, perStation.get(st.id) ?? []);
     files.push({ name: `calendar/${stationFileName(st.id)}`, content: calendarPieces(plan, mine, `Contacts at ${st.name} (${st.id}), ${span}`, uids) });
   }
   return files;

@@ -73,8 +73,10 @@ export function storedText(store: ContactTextStore, form: Form, i: number): Uint
   return store.reader.read(batch.file, form, key, f.at + start, f.at + end);
 }
 
-/** Bytes read from a spill file at a time. */
+/** Bytes read from a spill file at a time (iCalendar events: one window per station of a batch). */
 export const SPILL_WINDOW_BYTES = 32 * 1024;
+/** The same for the forms read batch by batch (one window per batch: few, so larger, fewer reads). */
+export const SPILL_BATCH_WINDOW_BYTES = 256 * 1024;
 /** Spill files kept open at once. */
 const MAX_OPEN_SPILL_FILES = 256;
 
@@ -94,7 +96,7 @@ export class SpillReader {
     }
     let w = this.windows.get(key);
     if (!w || start < w.start || end > w.end) {
-      const want = Math.max(SPILL_WINDOW_BYTES, end - start);
+      const want = Math.max(form === FORM.ics ? SPILL_WINDOW_BYTES : SPILL_BATCH_WINDOW_BYTES, end - start);
       const buf = w && w.buf.length >= want ? w.buf : Buffer.allocUnsafe(want);
       const got = readSync(this.fd(file), buf, 0, want, start);
       if (got < end - start) throw new Error(`spilled contact texts: ${file} ends at ${start + got}, before ${end} (a bug or a removed temp file)`);
