@@ -344,7 +344,7 @@ class PackedLink extends PackedRow {
   }
   /** A new array on every read. */
   get volumeBinsBits(): number[] {
-    return Array.from(this.p.bins.subarray(this.p.binFrom[this.i]!, this.p.binFrom[this.i + 1]!));
+    return arrayOf(this.p.bins, this.p.binFrom[this.i]!, this.p.binFrom[this.i + 1]!);
   }
   get expectedVolumeBits(): number | undefined {
     return this.rowOptional(HAS_EXPECTED, EXPECTED);
@@ -352,9 +352,16 @@ class PackedLink extends PackedRow {
   /** A new array on every read. */
   get expectedVolumeBinsBits(): number[] | undefined {
     if (!this.rowFlag(HAS_EXPECTED_BINS)) return undefined;
-    return Array.from(this.p.expectedBins.subarray(this.p.expectedFrom[this.i]!, this.p.expectedFrom[this.i + 1]!));
+    return arrayOf(this.p.expectedBins, this.p.expectedFrom[this.i]!, this.p.expectedFrom[this.i + 1]!);
   }
   get expectedVolumeBoundBits(): number | undefined {
     return this.rowOptional(HAS_EXPECTED_BOUND, EXPECTED_BOUND);
   }
+}
+
+/** values[from..to) as a new plain array (a loop: Array.from over a typed array's iterator cost ~2 us per contact in dailyTotals). */
+function arrayOf(values: Float64Array, from: number, to: number): number[] {
+  const out: number[] = [];
+  for (let k = from; k < to; k++) out.push(values[k]!);
+  return out;
 }
